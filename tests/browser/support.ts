@@ -1,0 +1,57 @@
+import { existsSync, mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+
+/** The two sizes every page is checked at. */
+export const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  wide: { width: 1280, height: 800 },
+} as const;
+export type ViewportName = keyof typeof VIEWPORTS;
+
+export const BASE_URL = process.env.E2E_BASE_URL ?? 'http://127.0.0.1:3101';
+export const MAIL_URL = process.env.E2E_MAIL_URL ?? 'http://127.0.0.1:2536';
+export const SCREENSHOT_DIR = path.resolve(__dirname, '../../test-results/screenshots');
+
+// Debian's wrapper script prints a harmless shell warning; the binary behind it does not.
+const EXECUTABLE = ['/usr/lib/chromium/chromium', '/usr/bin/chromium'].find((p) => existsSync(p));
+
+// Without the background-networking flags Chromium keeps trying hosts this machine cannot reach.
+const ARGS = [
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+];
+
+export async function launchBrowser(): Promise<Browser> {
+  if (!EXECUTABLE) throw new Error('Chromium not found: the test command installs it (apt-get install chromium).');
+  return chromium.launch({ executablePath: EXECUTABLE, args: ARGS, headless: true });
+}
+
+export async function newPage(
+  browser: Browser,
+  size: ViewportName,
+  colorScheme: 'light' | 'dark' = 'light',
+): Promise<{ context: BrowserContext; page: Page }> {
+  const context = await browser.newContext({ viewport: VIEWPORTS[size], colorScheme, baseURL: BASE_URL });
+  const page = await context.newPage();
+  return { context, page };
+}
+
+export async function screenshot(page: Page, name: string): Promise<string> {
+  mkdirSync(SCREENSHOT_DIR, { recursive: true });
+  const file = path.join(SCREENSHOT_DIR, `${name}.png`);
+  await page.screenshot({ path: file, fullPage: true });
+  return file;
+}
+
+/** The local e-mail fake's captured messages, newest last. */
+export async function mailbox(): Promise<{ to: string; subject: string; text: string }[]> {
+  const res = await fetch(`${MAIL_URL}/messages`);
+  return (await res.json()) as { to: string; subject: string; text: string }[];
+}
