@@ -1,7 +1,13 @@
 // odex ships its TypeScript source without a declaration file; tsc would type-check that
 // source under our strict settings and fail, so `paths` maps the module here instead.
+// Checked against node_modules/odex/src/odex.ts (2.0.4).
 declare module 'odex' {
   export type Derivative = (x: number, y: number[]) => number[];
+  /**
+   * Called after each accepted step (nr ≥ 2) and once before the first (nr = 1, no dense
+   * interpolator). `dense(c, x)` interpolates component c at x ∈ [xold, x] when
+   * `denseOutput` is on. Return false to stop (outcome EarlyReturn).
+   */
   export type OutputFunction = (
     nr: number,
     xold: number,
@@ -17,11 +23,28 @@ declare module 'odex' {
   export class Solver {
     constructor(n: number);
     n: number;
+    uRound: number;
+    /** default 10 000; exceeding it returns Outcome.MaxStepsExceeded (no exception). */
     maxSteps: number;
+    /** default 1e-4; odex never starts below 1e-4. */
     initialStepSize: number;
+    /** 0 means xEnd − x. */
     maxStepSize: number;
+    maxExtrapolationColumns: number;
+    stepSizeSequence: number;
+    stabilityCheckCount: number;
+    stabilityCheckTableLines: number;
     denseOutput: boolean;
+    denseOutputErrorEstimator: boolean;
     denseComponents: number[] | undefined;
+    interpolationFormulaDegree: number;
+    stepSizeReductionFactor: number;
+    stepSizeFac1: number;
+    stepSizeFac2: number;
+    stepSizeFac3: number;
+    stepSizeFac4: number;
+    stepSafetyFactor1: number;
+    stepSafetyFactor2: number;
     relativeTolerance: number | number[];
     absoluteTolerance: number | number[];
     debug: boolean;
@@ -40,6 +63,7 @@ declare module 'odex' {
       nReject: number;
       nEval: number;
     };
-    grid(dt: number, out: (x: number, y: number[]) => boolean | void): OutputFunction;
+    /** Sampler at a fixed interval (accumulates x += dt; needs denseOutput). */
+    grid(dt: number, out: (x: number, y: number[]) => unknown): OutputFunction;
   }
 }
