@@ -37,7 +37,7 @@ e2e_url="$(scripts/db.sh start pg-test "$DB_PORT" shoalshift_e2e | tail -n 1)"; 
 # The browser tests run against a freshly seeded database and the real server.
 ensure_web_export || { echo "$passed passed, $((failed + 1)) failed"; exit 1; }
 psql "$e2e_url" -qc 'drop schema public cascade; create schema public;' >/dev/null 2>&1
-export NODE_ENV=test SESSION_SECRET="test-secret-$(head -c 12 /dev/urandom | base64)" SMTP_HOST=127.0.0.1
+export NODE_ENV=test SESSION_SECRET="$(head -c 48 /dev/urandom | base64 | tr -d '\n')" SMTP_HOST=127.0.0.1
 (
   export DATABASE_URL="$e2e_url"
   "${TSX[@]}" server/migrate.ts >/dev/null && "${TSX[@]}" server/seed.ts >/dev/null
@@ -48,7 +48,10 @@ DATABASE_URL="$e2e_url" PORT="$E2E_PORT" APP_URL="http://127.0.0.1:$E2E_PORT" ST
   SMTP_PORT=$SMTP_PORT MAIL_FAKE_URL="http://127.0.0.1:$MAIL_HTTP_PORT" \
   "${TSX[@]}" server/index.ts > .data/test-server.log 2>&1 &
 pids+=($!)
-wait_http "http://127.0.0.1:$E2E_PORT/api/health" 60 || { say "test server did not start"; tail -n 30 .data/test-server.log; }
+if ! wait_http "http://127.0.0.1:$E2E_PORT/api/health" 60; then
+  say "the test server did not start:"; tail -n 30 .data/test-server.log >&2
+  failed=$((failed + 1))
+fi
 
 say "vitest (unit, api, browser)…"
 DATABASE_URL="$api_url" E2E_BASE_URL="http://127.0.0.1:$E2E_PORT" E2E_MAIL_URL="http://127.0.0.1:$MAIL_HTTP_PORT" \

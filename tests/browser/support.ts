@@ -50,8 +50,8 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   return file;
 }
 
-/** The local e-mail fake's captured messages, newest last. */
+/** The local e-mail fake's captured messages, newest first. */
 export async function mailbox(): Promise<{ to: string; subject: string; text: string }[]> {
   const res = await fetch(`${MAIL_URL}/messages`);
-  return (await res.json()) as { to: string; subject: string; text: string }[];
+  return ((await res.json()) as { messages: { to: string; subject: string; text: string }[] }).messages;
 }

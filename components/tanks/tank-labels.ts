@@ -1,0 +1,101 @@
+import type { LivestockItem, PlanEvent, PlanStatus, TankSetup } from '@/shared/schemas/tank';
+import type { AerationLevel, MediaType } from '@/shared/schemas/scenario';
+import { findSpecies } from '@/simulation/catalogue';
+import type { StatusTone } from '@/constants/theme';
+
+/** The three nitrogen values a keeper tests, in the order the nitrogen cycle runs. */
+export const NITROGEN_FIGURES = [
+  { key: 'tanMgN', label: 'Total ammonia', short: 'Ammonia' },
+  { key: 'no2MgN', label: 'Nitrite', short: 'Nitrite' },
+  { key: 'no3MgN', label: 'Nitrate', short: 'Nitrate' },
+] as const;
+
+/** Concentrations are stored and shown as nitrogen; the unit says so every time. */
+export const NITROGEN_UNIT = 'mg/L as N';
+
+export const planStatusLabel: Record<PlanStatus, { label: string; tone: StatusTone }> = {
+  draft: { label: 'Draft', tone: 'info' },
+  active: { label: 'In progress', tone: 'ok' },
+  done: { label: 'Finished', tone: 'info' },
+};
+
+/**
+ * What to call a livestock row: the keeper's own name, else the starter catalogue's common
+ * name, else the catalogue id read as words (an id the app's catalogue does not know yet).
+ */
+export function speciesDisplayName(item: Pick<LivestockItem, 'customName' | 'speciesId'>): string {
+  if (item.customName && item.customName.trim()) return item.customName.trim();
+  if (item.speciesId) {
+    const known = findSpecies(item.speciesId);
+    if (known) return known.commonName;
+    const words = item.speciesId.replace(/[-_]+/g, ' ').trim();
+    return words.charAt(0).toUpperCase() + words.slice(1);
+  }
+  return 'Unnamed animal';
+}
+
+const filterNames: Record<NonNullable<TankSetup['filter']>['kind'], string> = {
+  'hang-on-back': 'Hang-on-back filter',
+  canister: 'Canister filter',
+  sponge: 'Sponge filter',
+  internal: 'Internal filter',
+  sump: 'Sump',
+  trickle: 'Trickle filter',
+};
+
+const mediaNames: Record<MediaType, string> = {
+  'sponge-coarse': 'coarse sponge',
+  'sponge-fine': 'fine sponge',
+  'ceramic-rings': 'ceramic rings',
+  'plastic-carriers': 'plastic carriers',
+  'lava-rock': 'lava rock',
+  sand: 'sand',
+  'fine-gravel': 'fine gravel',
+  gravel: 'gravel',
+  'coarse-gravel': 'coarse gravel',
+};
+
+const grainNames = { sand: 'Sand', 'fine-gravel': 'Fine gravel', gravel: 'Gravel', 'coarse-gravel': 'Coarse gravel' } as const;
+
+const aerationNames: Record<AerationLevel, string> = {
+  none: 'none',
+  gentle: 'gentle',
+  'surface-agitation': 'surface agitation',
+  'air-stone': 'air stone',
+  strong: 'strong',
+};
+
+const litres = (v: number) => `${Number.isInteger(v) ? v : v.toFixed(1)} L`;
+
+/** One short line per part of the setup that is filled in; nothing for parts left out. */
+export function setupLines(setup: TankSetup): string[] {
+  const lines: string[] = [];
+  if (setup.filter) {
+    const { kind, media, mediaVolumeL, surfaceSkimmer } = setup.filter;
+    const mediaText = media ? `${litres(mediaVolumeL)} of ${mediaNames[media]}` : `${litres(mediaVolumeL)} of media`;
+    lines.push(`${filterNames[kind]}, ${mediaText}${surfaceSkimmer ? ', surface skimmer' : ''}`);
+  }
+  if (setup.substrate === 'bare') lines.push('Bare bottom');
+  else if (setup.substrate) lines.push(`${grainNames[setup.substrate.grain]}, ${setup.substrate.depthCm} cm deep`);
+  if (setup.plants && setup.plants !== 'none') lines.push(`Plants: ${setup.plants}`);
+  if (setup.hardscape && setup.hardscape !== 'none') lines.push(`Rock and wood: ${setup.hardscape}`);
+  if (setup.aeration) lines.push(`Aeration: ${aerationNames[setup.aeration]}`);
+  if (setup.lightHoursPerDay !== undefined) lines.push(`Light: ${setup.lightHoursPerDay} h a day`);
+  if (setup.zones?.length) lines.push(`${setup.zones.length} surface ${setup.zones.length === 1 ? 'zone' : 'zones'} set by hand`);
+  return lines;
+}
+
+/** "3 steps · adds 12 fish · removes 2 fish": what a plan does, in one line. */
+export function planSummary(events: readonly PlanEvent[]): string {
+  let added = 0;
+  let removed = 0;
+  for (const e of events) {
+    if (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in')) added += e.fish.count;
+    else if (e.type === 'remove-fish') removed += e.count;
+    else if (e.type === 'move-fish') removed += e.fish.count;
+  }
+  const parts = [`${events.length} ${events.length === 1 ? 'step' : 'steps'}`];
+  if (added) parts.push(`adds ${added} fish`);
+  if (removed) parts.push(`removes ${removed} fish`);
+  return parts.join(' · ');
+}

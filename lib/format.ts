@@ -1,0 +1,78 @@
+/** Display formatting for the tank screens. Pure: every function takes `now` or a locale explicitly. */
+
+const DAY_MS = 86_400_000;
+
+function startOfLocalDay(t: Date): number {
+  return new Date(t.getFullYear(), t.getMonth(), t.getDate()).getTime();
+}
+
+/** Whole calendar days from `then` to `now` in local time (0 = same day); null for an invalid date. */
+export function calendarDaysAgo(then: string | Date, now: Date): number | null {
+  const t = typeof then === 'string' ? new Date(then) : then;
+  if (Number.isNaN(t.getTime())) return null;
+  // Round: a daylight-saving change makes one local day 23 or 25 hours long.
+  return Math.round((startOfLocalDay(now) - startOfLocalDay(t)) / DAY_MS);
+}
+
+/** "today", "yesterday", "3 days ago", "in 2 days" (clock skew), or "unknown date". */
+export function relativeDayLabel(then: string | Date, now: Date): string {
+  const days = calendarDaysAgo(then, now);
+  if (days === null) return 'unknown date';
+  if (days === 0) return 'today';
+  if (days === 1) return 'yesterday';
+  if (days === -1) return 'tomorrow';
+  return days > 0 ? `${days} days ago` : `in ${-days} days`;
+}
+
+/** "12 Mar 2025" style date in the given locale (default: the runtime's). */
+export function shortDate(then: string | Date, locale?: string): string {
+  const t = typeof then === 'string' ? new Date(then) : then;
+  if (Number.isNaN(t.getTime())) return 'unknown date';
+  return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }).format(t);
+}
+
+/**
+ * A concentration in mg/L for reading at a glance: two decimals below 1 (test kits step in
+ * 0.25 mg/L there), one decimal below 10, whole numbers above. Null means "not tested": "—".
+ */
+export function formatMgPerL(value: number | null): string {
+  if (value === null || !Number.isFinite(value)) return '—';
+  const abs = Math.abs(value);
+  const digits = abs < 1 ? 2 : abs < 10 ? 1 : 0;
+  return value.toFixed(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+}
+
+/** Litres with at most one decimal: "120 L", "7.5 L". */
+export function formatLitres(value: number): string {
+  return `${Number.isInteger(value) ? value : value.toFixed(1).replace(/\.0$/, '')} L`;
+}
+
+/** "25 °C", "24.5 °C". */
+export function formatCelsius(value: number): string {
+  return `${Number.isInteger(value) ? value : value.toFixed(1).replace(/\.0$/, '')} °C`;
+}
+
+/** A wait in words, rounded up: "30 seconds", "1 minute", "15 minutes", "2 hours". */
+export function formatWait(seconds: number): string {
+  const s = Math.max(1, Math.ceil(seconds));
+  if (s < 60) return `${s} second${s === 1 ? '' : 's'}`;
+  const m = Math.ceil(s / 60);
+  if (m < 60) return `${m} minute${m === 1 ? '' : 's'}`;
+  const h = Math.ceil(m / 60);
+  return `${h} hour${h === 1 ? '' : 's'}`;
+}
+
+/** "1 fish", "14 fish · 3 species". */
+export function stockingLabel(fishCount: number, speciesCount: number): string {
+  if (fishCount === 0) return 'No fish';
+  const species = speciesCount > 0 ? ` · ${speciesCount} species` : '';
+  return `${fishCount} fish${species}`;
+}
+
+/** A compact date for tables: "12 Mar" within the current year, "12 Mar 2024" otherwise. */
+export function compactDate(then: string | Date, now: Date, locale?: string): string {
+  const t = typeof then === 'string' ? new Date(then) : then;
+  if (Number.isNaN(t.getTime())) return 'unknown date';
+  if (t.getFullYear() !== now.getFullYear()) return shortDate(t, locale);
+  return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short' }).format(t);
+}

@@ -1,0 +1,92 @@
+import type { ErrorRequestHandler } from 'express';
+import type { ApiError } from '../shared/api-error.js';
+import type { Logger } from './logger.js';
+
+/**
+ * The server's error vocabulary: each factory carries an HTTP status and a stable `code` the
+ * app can branch on. Anything thrown that is not an AppError becomes a generic 500.
+ */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: Record<string, string>,
+    readonly headers?: Record<string, string>,
+  ) {
+    super(message);
+    this.name = 'AppError';
+  }
+
+  toBody(): ApiError {
+    return { error: { code: this.code, message: this.message, ...(this.fields ? { fields: this.fields } : {}) } };
+  }
+}
+
+export const badRequest = (message: string, fields?: Record<string, string>) => new AppError(400, 'bad_request', message, fields);
+export const validationFailed = (fields: Record<string, string>) =>
+  new AppError(400, 'validation', 'Some fields need attention.', fields);
+export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthorized', message);
+export const invalidCredentials = () => new AppError(401, 'invalid_credentials', 'E-mail or password is wrong.');
+export const forbidden = (message = 'You do not have access to this.') => new AppError(403, 'forbidden', message);
+export const csrfRejected = (message = 'This request was refused because it did not come from the Shoalshift app.') =>
+  new AppError(403, 'csrf', message);
+export const notFound = (message = 'Not found.') => new AppError(404, 'not_found', message);
+export const conflict = (message: string, fields?: Record<string, string>) => new AppError(409, 'conflict', message, fields);
+export const payloadTooLarge = () => new AppError(413, 'payload_too_large', 'The request body is too large.');
+export const unsupportedMediaType = () =>
+  new AppError(415, 'unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
+export const tooManyRequests = (retryAfterSeconds: number, message = 'Too many attempts. Try again later.') =>
+  new AppError(429, 'too_many_requests', message, undefined, { 'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))) });
+export const serviceUnavailable = () =>
+  new AppError(503, 'unavailable', 'The service is briefly unavailable. Try again in a moment.');
+export const internalError = () => new AppError(500, 'internal', 'Something went wrong on our side. Try again later.');
+
+/** Errors raised by body-parser carry a `type`; map the ones a client can cause. */
+function fromBodyParser(err: unknown): AppError | undefined {
+  if (typeof err !== 'object' || err === null || !('type' in err)) return undefined;
+  switch ((err as { type: unknown }).type) {
+    case 'entity.too.large':
+      return payloadTooLarge();
+    case 'entity.parse.failed':
+      return badRequest('The request body is not valid JSON.');
+    case 'encoding.unsupported':
+    case 'charset.unsupported':
+      return unsupportedMediaType();
+    default:
+      return undefined;
+  }
+}
+
+/** PostgreSQL unreachable or shutting down: the client may retry. */
+function isDatabaseUnavailable(err: unknown): boolean {
+  if (typeof err !== 'object' || err === null) return false;
+  const code = (err as { code?: unknown }).code;
+  const message = String((err as { message?: unknown }).message ?? '');
+  return (
+    code === 'ECONNREFUSED' ||
+    code === 'ECONNRESET' ||
+    code === '57P01' || // admin_shutdown
+    code === '57P03' || // cannot_connect_now
+    /Connection terminated|connection timeout|Driver not Connected/i.test(message)
+  );
+}
+
+/** The one error handler: known errors as they are, anything else as a generic 500. */
+export function errorHandler(logger: Logger): ErrorRequestHandler {
+  return (err, req, res, next) => {
+    if (res.headersSent) return next(err);
+    let appError = err instanceof AppError ? err : fromBodyParser(err);
+    if (!appError) {
+      appError = isDatabaseUnavailable(err) ? serviceUnavailable() : internalError();
+      logger.log('error', 'request.failed', {
+        method: req.method,
+        path: req.path,
+        error: err instanceof Error ? `${err.name}: ${err.message}` : String(err),
+        stack: err instanceof Error ? err.stack : undefined,
+      });
+    }
+    if (appError.headers) res.set(appError.headers);
+    res.status(appError.status).json(appError.toBody());
+  };
+}

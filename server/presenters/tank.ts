@@ -1,0 +1,59 @@
+import type { LivestockItem, PlanItem, ReadingItem, TankDetail, TankSummary } from '../../shared/schemas/tank.js';
+import type { Livestock } from '../entities/livestock.js';
+import type { Plan } from '../entities/plan.js';
+import type { Reading } from '../entities/reading.js';
+import type { TankDetailRows, TankSummaryRow } from '../services/tanks.js';
+
+export function presentTankSummary(row: TankSummaryRow): TankSummary {
+  const { tank, latestReading: r, activePlan: p } = row;
+  return {
+    id: tank.id,
+    name: tank.name,
+    volumeL: tank.volumeL,
+    temperatureC: tank.temperatureC,
+    ph: tank.ph,
+    fishCount: row.fishCount,
+    speciesCount: row.speciesCount,
+    latestReading: r ? { takenAt: r.takenAt.toISOString(), tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN } : null,
+    activePlan: p ? { id: p.id, name: p.name } : null,
+  };
+}
+
+export function presentLivestock(l: Livestock): LivestockItem {
+  return { id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm };
+}
+
+export function presentReading(r: Reading): ReadingItem {
+  return {
+    id: r.id,
+    takenAt: r.takenAt.toISOString(),
+    tanMgN: r.tanMgN,
+    no2MgN: r.no2MgN,
+    no3MgN: r.no3MgN,
+    ph: r.ph,
+    temperatureC: r.temperatureC,
+    khDkh: r.khDkh,
+    basis: r.basis,
+  };
+}
+
+export function presentPlan(p: Plan): PlanItem {
+  return { id: p.id, name: p.name, startDate: p.startDate, status: p.status, events: p.events };
+}
+
+export function presentTankDetail({ tank, livestock, readings, plans }: TankDetailRows): TankDetail {
+  return {
+    id: tank.id,
+    name: tank.name,
+    volumeL: tank.volumeL,
+    temperatureC: tank.temperatureC,
+    ph: tank.ph,
+    khDkh: tank.khDkh,
+    tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
+    setup: tank.setup,
+    notes: tank.notes,
+    livestock: livestock.map(presentLivestock),
+    readings: readings.map(presentReading),
+    plans: plans.map(presentPlan),
+  };
+}

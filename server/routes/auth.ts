@@ -1,0 +1,68 @@
+import { Router } from 'express';
+import { forgotPasswordSchema, resetPasswordSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth.js';
+import type { AppDeps } from '../deps.js';
+import { AppError, invalidCredentials } from '../errors.js';
+import { clientAddress } from '../middleware/client-address.js';
+import { validBody, validateBody } from '../middleware/validate.js';
+import { presentMe } from '../presenters/me.js';
+import { authenticate, listMemberships, signUp } from '../services/accounts.js';
+import { resetPassword, sendPasswordReset } from '../services/password-reset.js';
+import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from '../services/sign-in-limiter.js';
+import { SESSION_COOKIE_NAME, destroySession, startUserSession } from '../session.js';
+
+export function authRouter({ dataSource: ds, config, mailer, logger, background }: AppDeps): Router {
+  const router = Router();
+
+  router.post('/sign-up', validateBody(signUpSchema), async (req, res) => {
+    const user = await signUp(ds, validBody(req, signUpSchema));
+    await startUserSession(req, user.id);
+    logger.log('info', 'auth.sign_up', { userId: user.id });
+    res.status(201).json(presentMe(user, []));
+  });
+
+  router.post('/sign-in', validateBody(signInSchema), async (req, res) => {
+    const { email, password } = validBody(req, signInSchema);
+    const address = clientAddress(req);
+    await assertSignInAllowed(ds, email, address).catch((err: unknown) => {
+      if (err instanceof AppError && err.status === 429) logger.log('warn', 'auth.sign_in_limited', { email, address });
+      throw err;
+    });
+    const user = await authenticate(ds, email, password);
+    if (!user) {
+      await recordSignInFailure(ds, email, address);
+      logger.log('warn', 'auth.sign_in_failed', { email, address });
+      throw invalidCredentials();
+    }
+    await clearSignInFailures(ds, email);
+    await startUserSession(req, user.id);
+    logger.log('info', 'auth.sign_in', { userId: user.id, address });
+    res.json(presentMe(user, await listMemberships(ds, user.id)));
+  });
+
+  router.post('/sign-out', async (req, res) => {
+    const userId = req.session?.userId;
+    await destroySession(req);
+    res.clearCookie(SESSION_COOKIE_NAME, { path: '/', httpOnly: true, sameSite: 'lax' });
+    if (userId) logger.log('info', 'auth.sign_out', { userId });
+    res.status(204).end();
+  });
+
+  router.post('/forgot-password', validateBody(forgotPasswordSchema), (req, res) => {
+    const { email } = validBody(req, forgotPasswordSchema);
+    // The work runs after the answer, so neither the answer nor its timing tells whether an
+    // account has this e-mail.
+    background.run('password-reset-mail', () => sendPasswordReset(ds, mailer, config.appUrl, email));
+    res.status(202).json({ message: 'If an account has this e-mail, a reset link is on its way.' });
+  });
+
+  router.post('/reset-password', validateBody(resetPasswordSchema), async (req, res) => {
+    const { token, password } = validBody(req, resetPasswordSchema);
+    await resetPassword(ds, token, password);
+    logger.log('info', 'auth.password_reset', {});
+    // This browser's own session (if any) ended with all others: clear its cookie too.
+    res.clearCookie(SESSION_COOKIE_NAME, { path: '/', httpOnly: true, sameSite: 'lax' });
+    res.status(204).end();
+  });
+
+  return router;
+}

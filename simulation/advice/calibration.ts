@@ -1,0 +1,313 @@
+/**
+ * Calibration to a tank's own test log (issue 4, point 6; model.md §7).
+ *
+ * Unknowns: a factor on the ammonia oxidisers' and on the nitrite oxidisers' capacity at the
+ * start of the log (each zone keeps its share), and optionally a growth-speed multiplier on
+ * both μmax — fitted in logarithms (they are positive and act multiplicatively) by
+ * Levenberg–Marquardt (ml-levenberg-marquardt), started from the best point of a coarse grid. Residuals follow the colour-chart error model
+ * of ./kit-error (rounding step/√12 plus a relative share; "0" censored). Each parameter
+ * vector costs one forecast; the library's forward differences add one per parameter.
+ *
+ * Quality: RMSE in kit steps, and the reduced χ² of the scaled residuals; the fit is "poor"
+ * when the reduced χ² exceeds 4 — readings sit on average more than twice the kit's expected
+ * error from the best the model can do (common practice for a χ² misfit flag).
+ *
+ * Narrower band: the covariance of the log-parameters is s²(JᵀJ)⁻¹ (J the scaled-residual
+ * Jacobian at the optimum, s² the reduced χ² floored at 1); an ensemble draws them by Latin
+ * hypercube through the normal quantile, with the other model values at their defaults — the
+ * fit was made at those values, so letting them vary independently would ignore that.
+ */
+import { levenbergMarquardt } from 'ml-levenberg-marquardt';
+import { inv } from 'mathjs';
+import type { Scenario } from '../../shared/schemas/scenario';
+import { forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
+import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
+import { MOLAR_MASS } from '../units';
+import { ESTIMATE_CAUTIONS } from './cautions';
+import { bandOf, runEnsemble, DEFAULT_SEED, MIN_BAND_MEMBERS, type EnsembleBand } from './ensemble';
+import { DEFAULT_KIT, scaledResidual, type KitSpec } from './kit-error';
+import { latinHypercube } from './latin-hypercube';
+import { normalQuantile } from './normal-quantile';
+import { seededRandom } from './random';
+import { withStart } from './scenario-edit';
+import { formatValue } from './tank-limits';
+
+export interface Reading {
+  /** days from the scenario's day 0 */
+  day: number;
+  tanMgN?: number;
+  no2MgN?: number;
+}
+
+export type FitKey = 'ao' | 'no' | 'growth';
+
+export interface CalibrationRequest {
+  /** The tank over the period of the log (start = the prior guess of its state at day 0). */
+  scenario: Scenario;
+  readings: Reading[];
+  kits?: { tan?: KitSpec; no2?: KitSpec };
+  /** What to fit (default all three; a capacity test fits capacities only). */
+  fit?: readonly FitKey[];
+  /** Days forecast after the last reading for the band (default 30). */
+  forecastDays?: number;
+  members?: number;
+  seed?: number;
+}
+
+export interface CalibrationResult {
+  fitted: { aoFactor: number; noFactor: number; growthMultiplier: number };
+  /** capacities at the water temperature, mg N/day */
+  capacity: {
+    startAoMgNPerDay: number;
+    startNoMgNPerDay: number;
+    presentAoMgNPerDay: number;
+    presentNoMgNPerDay: number;
+    /** the present ammonia-oxidiser capacity as mg NH3 a day */
+    presentAoMgNH3PerDay: number;
+  };
+  /** log-parameter standard errors, in the order of `fit` */
+  standardErrors: Record<FitKey, number | null>;
+  quality: { rmseKitSteps: number; reducedChiSquare: number; readings: number; verdict: 'good' | 'fair' | 'poor'; iterations: number };
+  /** scenario with the fitted start (explicit capacities) and growth, ready to forecast */
+  calibratedScenario: Scenario;
+  calibratedParameters: ParameterOverrides;
+  band: { prior: EnsembleBand; calibrated: EnsembleBand; meanWidthTan: { prior: number; calibrated: number }; meanWidthNo2: { prior: number; calibrated: number } };
+  explanation: string[];
+  cautions: string[];
+}
+
+interface Base {
+  start: { zoneId: string; ao: number; no: number }[];
+  water: { tanMgN: number; no2MgN: number; no3MgN: number; orgMgN: number };
+}
+
+/** Day-0 capacities and water of the scenario as described (the prior), before any day-0 event. */
+function baseState(scenario: Scenario): Base {
+  const f = forecastParsed({ ...scenario, events: [] }, { horizonDays: 0.01, stepDays: 0.01 });
+  return {
+    start: f.series.zones.map((z) => ({ zoneId: z.zoneId, ao: z.ao[0], no: z.no[0] })),
+    water: { tanMgN: f.series.tanMgN[0], no2MgN: f.series.no2MgN[0], no3MgN: f.series.no3MgN[0], orgMgN: f.series.orgMgN[0] },
+  };
+}
+
+/** The scenario with capacities scaled and the day-0 water fixed to the prior's. */
+export function scaledScenario(scenario: Scenario, base: Base, aoFactor: number, noFactor: number): Scenario {
+  // A zone without nitrifiers in the prior gets a trace so a factor can act on it.
+  const s = withStart(scenario, {
+    kind: 'explicit',
+    capacities: base.start.map((z) => ({ zoneId: z.zoneId, aoMgNPerDay: z.ao * aoFactor, noMgNPerDay: z.no * noFactor })),
+  });
+  return { ...s, initialWater: { ...base.water, ...scenario.initialWater } };
+}
+
+function growthParameters(g: number): ParameterOverrides {
+  return { muMaxAo: DEFAULT_PARAMETERS.muMaxAo * g, muMaxNo: DEFAULT_PARAMETERS.muMaxNo * g };
+}
+
+/** Linear interpolation of a sampled series at a day. */
+function at(days: readonly number[], values: readonly number[], day: number): number {
+  if (day <= days[0]) return values[0];
+  const last = days.length - 1;
+  if (day >= days[last]) return values[last];
+  const step = days[1] - days[0];
+  const i = Math.min(Math.floor((day - days[0]) / step), last - 1);
+  const w = (day - days[i]) / (days[i + 1] - days[i]);
+  return values[i] * (1 - w) + values[i + 1] * w;
+}
+
+interface Observation {
+  day: number;
+  species: 'tan' | 'no2';
+  value: number;
+  kit: KitSpec;
+}
+
+const STEP_DAYS = 1 / 24;
+
+export function calibrate(request: CalibrationRequest): CalibrationResult {
+  const { scenario } = request;
+  const fit = request.fit ?? (['ao', 'no', 'growth'] as const);
+  const kits = { tan: request.kits?.tan ?? DEFAULT_KIT, no2: request.kits?.no2 ?? DEFAULT_KIT };
+  const obs: Observation[] = [];
+  for (const r of request.readings) {
+    if (!(r.day >= 0)) throw new RangeError(`reading day must be ≥ 0, got ${r.day}`);
+    if (r.tanMgN !== undefined) obs.push({ day: r.day, species: 'tan', value: r.tanMgN, kit: kits.tan });
+    if (r.no2MgN !== undefined) obs.push({ day: r.day, species: 'no2', value: r.no2MgN, kit: kits.no2 });
+  }
+  if (obs.length < fit.length + 1) throw new RangeError(`need at least ${fit.length + 1} readings to fit ${fit.length} unknowns, got ${obs.length}`);
+  const lastDay = Math.max(...obs.map((o) => o.day));
+  const horizon = Math.max(lastDay, STEP_DAYS * 2);
+  const base = baseState(scenario);
+  const options: ForecastOptions = { horizonDays: horizon, stepDays: Math.min(STEP_DAYS * 6, horizon / 4), tolerances: { relative: 1e-5 } };
+
+  const unpack = (theta: number[]) => {
+    const v = { ao: 1, no: 1, growth: 1 };
+    fit.forEach((k, i) => (v[k] = Math.exp(theta[i])));
+    return v;
+  };
+  const run = (theta: number[]): Forecast => {
+    const v = unpack(theta);
+    return forecastParsed(scaledScenario(scenario, base, v.ao, v.no), { ...options, parameters: growthParameters(v.growth) });
+  };
+  const residuals = (f: Forecast) =>
+    obs.map((o) => scaledResidual(o.kit, o.value, at(f.series.days, o.species === 'tan' ? f.series.tanMgN : f.series.no2MgN, o.day)));
+
+  let calls = 0;
+  const model = (theta: number[]) => {
+    calls++;
+    let r: number[];
+    try {
+      r = residuals(run(theta));
+    } catch {
+      r = obs.map(() => 1e3); // a parameter set the engine refuses counts as a very bad fit
+    }
+    return (i: number) => -r[i];
+  };
+  const x = obs.map((_, i) => i);
+  const y = obs.map(() => 0);
+  const bounds = { ao: [Math.log(1e-4), Math.log(1e4)], no: [Math.log(1e-4), Math.log(1e4)], growth: [Math.log(0.2), Math.log(3)] };
+  // Start LM from the best point of a coarse grid: a cycling tank's readings depend on the
+  // timing of exponential growth, and a start far off leaves LM in a local minimum.
+  const gridValues: Record<FitKey, number[]> = {
+    ao: [-3, -1.5, 0, 1.5, 3],
+    no: [-3, -1.5, 0, 1.5, 3],
+    growth: [Math.log(0.6), 0, Math.log(1.5)],
+  };
+  let start = fit.map(() => 0);
+  let startSsr = Infinity;
+  const visit = (prefix: number[]) => {
+    if (prefix.length === fit.length) {
+      const f = model(prefix);
+      const ssr = obs.reduce((s, _, i) => s + f(i) ** 2, 0);
+      if (ssr < startSsr) {
+        startSsr = ssr;
+        start = prefix;
+      }
+      return;
+    }
+    for (const g of gridValues[fit[prefix.length]]) visit([...prefix, g]);
+  };
+  visit([]);
+  const lm = levenbergMarquardt({ x, y }, model, {
+    initialValues: start,
+    minValues: fit.map((k) => bounds[k][0]),
+    maxValues: fit.map((k) => bounds[k][1]),
+    gradientDifference: 1e-3,
+    damping: 1e-2,
+    maxIterations: 60,
+    errorTolerance: 1e-8,
+    improvementThreshold: 1e-4,
+  });
+  const theta = lm.parameterValues;
+  const v = unpack(theta);
+  const best = run(theta);
+  const r = residuals(best);
+  const ssr = r.reduce((s, x) => s + x * x, 0);
+  const dof = Math.max(1, obs.length - fit.length);
+  const reducedChiSquare = ssr / dof;
+  const stepErr = obs.map((o) => {
+    const m = at(best.series.days, o.species === 'tan' ? best.series.tanMgN : best.series.no2MgN, o.day);
+    const err = o.value <= 0 ? Math.max(0, m - o.kit.stepMgN / 2) : o.value - m;
+    return err / o.kit.stepMgN;
+  });
+  const rmseKitSteps = Math.sqrt(stepErr.reduce((s, x) => s + x * x, 0) / stepErr.length);
+  const verdict = reducedChiSquare > 4 ? 'poor' : reducedChiSquare > 1.5 ? 'fair' : 'good';
+
+  // Covariance from a central-difference Jacobian at the optimum.
+  const h = 1e-3;
+  const J = obs.map(() => new Array<number>(fit.length).fill(0));
+  fit.forEach((_, j) => {
+    const up = theta.slice();
+    const dn = theta.slice();
+    up[j] += h;
+    dn[j] -= h;
+    const ru = residuals(run(up));
+    const rd = residuals(run(dn));
+    for (let i = 0; i < obs.length; i++) J[i][j] = (ru[i] - rd[i]) / (2 * h);
+  });
+  const JtJ = fit.map((_, a) => fit.map((_, b) => J.reduce((s, row) => s + row[a] * row[b], 0) + (a === b ? 1e-9 : 0)));
+  const s2 = Math.max(1, reducedChiSquare);
+  let cov: number[][];
+  try {
+    cov = (inv(JtJ) as number[][]).map((row) => row.map((c) => c * s2));
+  } catch {
+    cov = fit.map((_, a) => fit.map((_, b) => (a === b ? 1 : 0)));
+  }
+  const standardErrors: Record<FitKey, number | null> = { ao: null, no: null, growth: null };
+  fit.forEach((k, i) => (standardErrors[k] = Math.sqrt(Math.max(0, cov[i][i]))));
+
+  // Bands: the prior ensemble and the calibrated one, over the log and `forecastDays` beyond.
+  const bandHorizon = lastDay + (request.forecastDays ?? 30);
+  const bandOpts: ForecastOptions = { horizonDays: bandHorizon, stepDays: 0.5, tolerances: { relative: 1e-4 } };
+  const members = request.members ?? MIN_BAND_MEMBERS;
+  const seed = request.seed ?? DEFAULT_SEED;
+  const prior = runEnsemble(scenario, { members, seed }, bandOpts).band;
+  const L = cholesky(cov);
+  const rows = latinHypercube(members, fit.length, seededRandom(seed));
+  const calibratedForecasts: Forecast[] = [];
+  for (const u of rows) {
+    const z = u.map((p) => normalQuantile(Math.min(Math.max(p, 1e-9), 1 - 1e-9)));
+    const t = theta.map((t0, i) => t0 + L[i].reduce((s, lij, j) => s + lij * z[j], 0));
+    const w = unpack(t);
+    try {
+      calibratedForecasts.push(forecastParsed(scaledScenario(scenario, base, w.ao, w.no), { ...bandOpts, parameters: growthParameters(Math.max(w.growth, 0.05)) }));
+    } catch {
+      // a draw the engine refuses is left out of the band
+    }
+  }
+  const calibrated = bandOf(calibratedForecasts);
+  const width = (b: { p10: number[]; p90: number[] }) => b.p90.reduce((s, x, i) => s + x - b.p10[i], 0) / b.p90.length;
+
+  const last = best.series.days.length - 1;
+  const sum = (k: 'ao' | 'no', i: number) => best.series.zones.reduce((s, z) => s + z[k][i], 0);
+  const presentAo = sum('ao', last);
+  const calibratedScenario = scaledScenario(scenario, base, v.ao, v.no);
+  const explanation = [
+    `Fitted to ${obs.length} readings: your ammonia-eating nitrifiers could clear about ${formatValue(presentAo)} mg of ammonia-nitrogen a day (${formatValue((presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N)} mg of ammonia) at the last reading, the nitrite-eating ones about ${formatValue(sum('no', last))} mg a day.`,
+    `The model sits on average ${formatValue(rmseKitSteps)} colour steps from your readings. ` +
+      (verdict === 'poor'
+        ? 'That is a poor fit: your readings contradict the model as set up — check the tank settings (volume, filter, fish, events), the kit\'s basis (as N or as the ion) and the dates.'
+        : verdict === 'fair'
+          ? 'That is a fair fit for colour-chart kits.'
+          : 'That is as close as colour-chart kits allow.'),
+    `With the fit, the band narrows from an average width of ${formatValue(width(prior.tanMgN))} to ${formatValue(width(calibrated.tanMgN))} mg N/L for total ammonia and from ${formatValue(width(prior.no2MgN))} to ${formatValue(width(calibrated.no2MgN))} mg N/L for nitrite.`,
+  ];
+  return {
+    fitted: { aoFactor: v.ao, noFactor: v.no, growthMultiplier: v.growth },
+    capacity: {
+      startAoMgNPerDay: sum('ao', 0),
+      startNoMgNPerDay: sum('no', 0),
+      presentAoMgNPerDay: presentAo,
+      presentNoMgNPerDay: sum('no', last),
+      presentAoMgNH3PerDay: (presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N,
+    },
+    standardErrors,
+    quality: { rmseKitSteps, reducedChiSquare, readings: obs.length, verdict, iterations: lm.iterations },
+    calibratedScenario,
+    calibratedParameters: growthParameters(v.growth),
+    band: {
+      prior,
+      calibrated,
+      meanWidthTan: { prior: width(prior.tanMgN), calibrated: width(calibrated.tanMgN) },
+      meanWidthNo2: { prior: width(prior.no2MgN), calibrated: width(calibrated.no2MgN) },
+    },
+    explanation,
+    cautions: [...ESTIMATE_CAUTIONS],
+  };
+}
+
+/** Lower Cholesky factor of a symmetric positive semi-definite matrix (zero pivots left at 0). */
+export function cholesky(a: number[][]): number[][] {
+  const n = a.length;
+  const L = a.map(() => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j <= i; j++) {
+      let s = a[i][j];
+      for (let k = 0; k < j; k++) s -= L[i][k] * L[j][k];
+      if (i === j) L[i][i] = s > 0 ? Math.sqrt(s) : 0;
+      else L[i][j] = L[j][j] > 0 ? s / L[j][j] : 0;
+    }
+  }
+  return L;
+}
+

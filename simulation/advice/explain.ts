@@ -1,0 +1,55 @@
+/** Keeper-facing sentences shared by the advisors. */
+import type { ForecastVerdict } from './judge';
+import type { PlanOutcome } from './plan-outcome';
+import { formatValue, type AppliedLimit, type LimitKey } from './tank-limits';
+
+export function limitByKey(limits: readonly AppliedLimit[], key: LimitKey): AppliedLimit {
+  const l = limits.find((x) => x.key === key);
+  if (!l) throw new RangeError(`no limit "${key}"`);
+  return l;
+}
+
+/** "nitrite (0.1 mg N/L; culture practice …; source …)" */
+export function describeLimit(limit: AppliedLimit): string {
+  return `${limit.label} limit ${formatValue(limit.value)} ${limit.unit} (${limit.basis}; source: ${limit.source})`;
+}
+
+/** One sentence on how a verdict relates to its binding limit. */
+export function describeVerdict(v: ForecastVerdict, limits: readonly AppliedLimit[], what: string): string {
+  const l = limitByKey(limits, v.binding);
+  const lv = v.limits.find((x) => x.key === v.binding)!;
+  if (v.safe) {
+    return `${what}: ${l.label} comes closest to its limit, peaking at ${formatValue(lv.peakValue)} ${l.unit} on day ${formatValue(lv.peakDay)} — ${Math.round(lv.peakRatio * 100)} % of the limit.`;
+  }
+  return (
+    `${what}: ${l.label} goes over its limit from day ${formatValue(lv.firstDayOver ?? lv.peakDay)}, peaking at ` +
+    `${formatValue(lv.peakValue)} ${l.unit} on day ${formatValue(lv.peakDay)} (${Math.round(lv.peakRatio * 100)} % of the limit) ` +
+    `and staying over for about ${formatValue(lv.daysOver)} days.`
+  );
+}
+
+/** Why a limit binds: the species and what it does to fish. */
+export function whyLimitMatters(key: LimitKey): string {
+  switch (key) {
+    case 'freeNh3':
+      return 'Free ammonia (NH3) is the form that burns gills; its share of total ammonia rises with pH and temperature, so in this water it is the first ammonia limit reached.';
+    case 'tanAcute':
+      return 'The short-term total-ammonia limit is the level at which even a brief spike harms sensitive fish at this pH and temperature.';
+    case 'tanChronic':
+      return 'The long-term total-ammonia limit protects fish exposed for weeks; advice keeps the forecast under it at every moment, which is stricter than the 30-day average it is written for.';
+    case 'nitrite':
+      return 'Nitrite stops blood carrying oxygen. The nitrite-eating nitrifiers grow more slowly than the ammonia-eating ones, so after an addition nitrite often peaks later and limits the pace.';
+  }
+}
+
+/** One sentence on a plan's outcome judged on the ensemble (see ./plan-outcome). */
+export function describeOutcome(o: PlanOutcome, limits: readonly AppliedLimit[], what: string): string {
+  const v = o.upperEdge;
+  const l = limitByKey(limits, v.binding);
+  const lv = v.limits.find((x) => x.key === v.binding)!;
+  const share = `${o.membersCrossing} of ${o.members} plausible forecasts cross a limit`;
+  const closest = `${l.label} comes closest: 9 in 10 forecasts peak below ${formatValue(lv.peakValue)} ${l.unit} (limit ${formatValue(l.value)}), around day ${formatValue(lv.peakDay)}`;
+  return o.upperEdge.safe
+    ? `${what}: ${share} — within the 1 in 10 allowed. ${closest}.`
+    : `${what}: ${share} — more than the 1 in 10 allowed. ${closest}.`;
+}

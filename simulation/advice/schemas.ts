@@ -1,0 +1,227 @@
+/**
+ * Request and response shapes of the advice and calibration layer, for API validation. No
+ * server code here: the server imports these. Concentrations mg N/L, days from day 0.
+ */
+import { z } from 'zod';
+import { fishGroupSchema, scenarioSchema } from '../../shared/schemas/scenario';
+import { LIMIT_KEYS } from './tank-limits';
+
+const limitKey = z.enum(LIMIT_KEYS);
+const day = z.number().min(0).max(3650);
+
+export const limitSettingsSchema = z.object({
+  nitriteBasis: z.enum(['culture-practice', 'chloride']).optional(),
+  freeAmmoniaGuideline: z.enum(['ccme', 'eifac']).optional(),
+  sensitivityFactor: z.number().gt(0).max(1).optional(),
+  overrides: z.partialRecord(limitKey, z.number().gt(0)).optional(),
+});
+
+export const adviceSettingsSchema = z.object({
+  limits: limitSettingsSchema.optional(),
+  members: z.number().int().min(64).max(1024).optional(),
+  seed: z.number().int().optional(),
+  boundingSize: z.number().int().min(1).max(16).optional(),
+});
+
+export const ammoniaSolutionSchema = z.object({
+  percentNH3: z.number().gt(0).max(35),
+  densityGPerMl: z.number().min(0.85).max(1).optional(),
+});
+
+export const additionRequestSchema = z.object({
+  scenario: scenarioSchema,
+  fish: fishGroupSchema,
+  constraints: z
+    .object({
+      minBatch: z.number().int().min(1).optional(),
+      maxBatches: z.number().int().min(1).max(20).optional(),
+      firstDay: day.optional(),
+      latestFinishDay: day.optional(),
+      allowedDays: z.array(z.number().int().min(0).max(3650)).max(400).optional(),
+    })
+    .optional(),
+  searchDays: z.number().int().min(1).max(365).optional(),
+  settings: adviceSettingsSchema.optional(),
+});
+
+export const removalRequestSchema = z.object({
+  scenario: scenarioSchema,
+  removals: z.array(z.object({ species: z.string().min(1).optional(), name: z.string().min(1).optional(), count: z.number().int().min(1) })).max(200),
+  removalDay: day.optional(),
+  restockDay: z.number().int().min(1).max(3650),
+  restock: z.array(fishGroupSchema).max(200).optional(),
+  solution: ammoniaSolutionSchema.optional(),
+  daysAfterRestock: z.number().int().min(1).max(365).optional(),
+  settings: adviceSettingsSchema.optional(),
+});
+
+export const rescueRequestSchema = z.object({
+  scenario: scenarioSchema,
+  horizonDays: z.number().gt(0).max(365).optional(),
+  maxPercent: z.number().gt(0).max(100).optional(),
+  stepPercent: z.number().gt(0).max(50).optional(),
+  minPercent: z.number().gt(0).max(100).optional(),
+  settings: adviceSettingsSchema.optional(),
+});
+
+export const kitSchema = z.object({ stepMgN: z.number().gt(0).max(5), relativeError: z.number().min(0).max(1) });
+
+export const calibrationRequestSchema = z.object({
+  scenario: scenarioSchema,
+  readings: z
+    .array(z.object({ day, tanMgN: z.number().min(0).max(100).optional(), no2MgN: z.number().min(0).max(100).optional() }))
+    .min(2)
+    .max(2000),
+  kits: z.object({ tan: kitSchema.optional(), no2: kitSchema.optional() }).optional(),
+  fit: z.array(z.enum(['ao', 'no', 'growth'])).min(1).max(3).optional(),
+  forecastDays: z.number().int().min(1).max(365).optional(),
+  members: z.number().int().min(64).max(1024).optional(),
+  seed: z.number().int().optional(),
+});
+
+export const capacityTestRequestSchema = z.object({
+  scenario: scenarioSchema,
+  doseMgNPerL: z.number().gt(0).max(10),
+  readings: z.array(z.object({ hour: z.number().min(0).max(72), tanMgN: z.number().min(0).max(100), no2MgN: z.number().min(0).max(100).optional() })).min(2).max(50),
+  kit: kitSchema.optional(),
+});
+
+// --- responses -------------------------------------------------------------------------
+
+const series = z.array(z.number());
+const bandSchema = z.object({ p10: series, p50: series, p90: series });
+export const ensembleBandSchema = z.object({
+  days: series,
+  tanMgN: bandSchema,
+  freeNh3MgL: bandSchema,
+  no2MgN: bandSchema,
+  no3MgN: bandSchema,
+  aoMgNPerDay: bandSchema,
+  noMgNPerDay: bandSchema,
+});
+
+export const appliedLimitSchema = z.object({
+  key: limitKey,
+  label: z.string(),
+  series: z.enum(['freeNh3', 'tan', 'no2']),
+  value: z.number(),
+  unit: z.enum(['mg NH3/L', 'mg N/L']),
+  basis: z.string(),
+  source: z.string(),
+  defaultValue: z.number(),
+  adjusted: z.boolean(),
+  fixedByKeeper: z.boolean(),
+});
+
+const limitVerdictSchema = z.object({
+  key: limitKey,
+  peakRatio: z.number(),
+  peakValue: z.number(),
+  peakDay: z.number(),
+  firstDayOver: z.number().nullable(),
+  daysOver: z.number(),
+});
+export const verdictSchema = z.object({ safe: z.boolean(), binding: limitKey, peakRatio: z.number(), limits: z.array(limitVerdictSchema) });
+
+export const planOutcomeSchema = z.object({
+  band: ensembleBandSchema,
+  upperEdge: verdictSchema,
+  median: verdictSchema,
+  edgePeakRatio: z.number(),
+  membersCrossing: z.number().int(),
+  members: z.number().int(),
+});
+
+const judgementSchema = z.object({
+  method: z.literal('bounding-set'),
+  ensembleMembers: z.number().int(),
+  seed: z.number(),
+  boundingMembers: z.array(z.number().int()),
+  boundingDraws: z.array(z.object({ index: z.number().int(), parameters: z.record(z.string(), z.number()), feedingMultiplier: z.number() })),
+  forecastsRun: z.number().int(),
+});
+const words = { explanation: z.array(z.string()).min(1), cautions: z.array(z.string()).min(1) };
+const eventList = z.array(z.record(z.string(), z.unknown()));
+
+export const additionResponseSchema = z.object({
+  status: z.enum(['all-at-once-is-safe', 'staged', 'no-safe-schedule']),
+  batches: z.array(z.object({ day: z.number(), count: z.number().int() })),
+  finishDay: z.number().nullable(),
+  events: eventList,
+  staged: planOutcomeSchema.nullable(),
+  allAtOnce: planOutcomeSchema,
+  binding: appliedLimitSchema,
+  limits: z.array(appliedLimitSchema),
+  judgement: judgementSchema,
+  ...words,
+});
+
+export const removalResponseSchema = z.object({
+  targetCapacityMgNPerDay: z.number(),
+  capacityAtRestock: z.object({ withAdvice: z.number(), withoutAdvice: z.number() }),
+  dose: z.object({
+    mgNPerLPerDay: z.number(),
+    ammoniumChlorideGPerDay: z.number(),
+    ammoniaSolutionMlPerDay: z.number().nullable(),
+    solution: ammoniaSolutionSchema.nullable(),
+  }),
+  feeding: z.object({ before: z.string(), after: z.string(), cutShare: z.number() }),
+  events: eventList,
+  withAdvice: planOutcomeSchema,
+  withoutAdvice: planOutcomeSchema,
+  limits: z.array(appliedLimitSchema),
+  ...words,
+});
+
+export const rescueResponseSchema = z.object({
+  status: z.enum(['no-changes-needed', 'rescued', 'cannot-rescue']),
+  changes: z.array(z.object({ day: z.number(), percent: z.number() })),
+  events: eventList,
+  without: planOutcomeSchema,
+  withChanges: planOutcomeSchema.nullable(),
+  binding: appliedLimitSchema,
+  limits: z.array(appliedLimitSchema),
+  judgement: judgementSchema,
+  ...words,
+});
+
+export const calibrationResponseSchema = z.object({
+  fitted: z.object({ aoFactor: z.number(), noFactor: z.number(), growthMultiplier: z.number() }),
+  capacity: z.object({
+    startAoMgNPerDay: z.number(),
+    startNoMgNPerDay: z.number(),
+    presentAoMgNPerDay: z.number(),
+    presentNoMgNPerDay: z.number(),
+    presentAoMgNH3PerDay: z.number(),
+  }),
+  standardErrors: z.object({ ao: z.number().nullable(), no: z.number().nullable(), growth: z.number().nullable() }),
+  quality: z.object({
+    rmseKitSteps: z.number(),
+    reducedChiSquare: z.number(),
+    readings: z.number().int(),
+    verdict: z.enum(['good', 'fair', 'poor']),
+    iterations: z.number().int(),
+  }),
+  calibratedScenario: scenarioSchema,
+  calibratedParameters: z.record(z.string(), z.number()),
+  band: z.object({
+    prior: ensembleBandSchema,
+    calibrated: ensembleBandSchema,
+    meanWidthTan: z.object({ prior: z.number(), calibrated: z.number() }),
+    meanWidthNo2: z.object({ prior: z.number(), calibrated: z.number() }),
+  }),
+  ...words,
+});
+
+export const capacityTestProtocolSchema = z.object({
+  doseMgNPerL: z.number(),
+  ammoniumChlorideG: z.number(),
+  ammoniaSolutionMl: z.number().nullable(),
+  readingHours: z.array(z.number()),
+  expectedTanMgN: z.array(z.number()),
+  steps: z.array(z.string()).min(1),
+  cautions: z.array(z.string()).min(1),
+});
+
+export type AdditionRequestInput = z.input<typeof additionRequestSchema>;
+export type CalibrationRequestInput = z.input<typeof calibrationRequestSchema>;
