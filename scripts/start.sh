@@ -56,7 +56,7 @@ cat <<MSG
   Shoalshift is running at  $APP_URL   (ready in $(( $(date +%s) - t0 )) s)
 
   Demo sign-ins:
-$(cat .data/seed-output.txt)
+$(grep "^  " .data/seed-output.txt)
 
   Captured e-mails (local fake, nothing leaves this machine): $APP_URL/dev/outbox
   Press Ctrl-C to stop.
