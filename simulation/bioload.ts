@@ -62,10 +62,13 @@ export interface FeedFlows {
  * Hence removing fish at constant grams of food does not lower the long-run load, only shifts
  * it from direct excretion to detritus.
  */
-export function feedNitrogenFlows(fishMassTotalG: number, feeding: Feeding, p: Parameters): FeedFlows {
+export function feedNitrogenFlows(fishMassTotalG: number, feeding: Feeding, p: Parameters, multiplier = 1): FeedFlows {
   const protein = feeding.proteinShare ?? p.proteinShare;
+  // `multiplier` scales the food offered (an ensemble's feeding draw), in either mode.
   const feedG =
-    feeding.mode === 'grams' ? feeding.gramsPerDay : (fishMassTotalG * (feeding.percentPerDay ?? p.feedPercent)) / 100;
+    feeding.mode === 'grams'
+      ? feeding.gramsPerDay * multiplier
+      : (fishMassTotalG * ((feeding.percentPerDay ?? p.feedPercent) * multiplier)) / 100;
   const eatenG = Math.min(feedG, (fishMassTotalG * p.appetite) / 100);
   const offeredN = 1000 * feedG * protein * p.nPerProtein;
   const eatenN = 1000 * eatenG * protein * p.nPerProtein;

@@ -2,14 +2,22 @@
  * forecast(scenario, options): the nitrogen-cycle forecast of one tank over a timeline of
  * events (model.md). Pure: no I/O. Invalid input throws ScenarioError (with `.fields`)
  * before any solving; solver failure throws SolverError.
+ *
+ * Resumable runs: `createForecastSession` integrates forward on demand and hands out a
+ * `ForecastState` at any day (the water and populations just before that day's events);
+ * `forecastParsed(scenario, { from: state })` continues from it. The continued run applies
+ * every event at or after the state's day and reports samples from that day on, so a
+ * forecast of "the same plan plus one more event on day d" costs only the days after d. The
+ * state remembers which scenario prefix (tank, start, fish, feeding, events before d,
+ * parameters, feeding multiplier) produced it, and a mismatch is refused.
  */
 import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '../shared/schemas/scenario';
-import { feedNitrogenFlows, type Feeding } from './bioload';
+import { feedNitrogenFlows, type FeedFlows, type Feeding } from './bioload';
 import { carbonateCo2, epaAcuteTan, epaChronicTan } from './chemistry';
 import { defaultLimits, type LimitChoices, type TankLimits } from './limits';
 import { aoIndex, createModel, I_KH, I_NO2, I_NO3, I_ORG, I_PLANT, I_TAN, noIndex, type Model, type SegmentConditions } from './model';
 import { resolveParameters, type ParameterOverrides, type Parameters } from './parameters';
-import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone } from './presets';
+import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone, type ResolvedZone } from './presets';
 import { createOdexIntegrator, type IntegrationStats, type SamplingMode, type SegmentIntegrator } from './solver';
 import { LoadTooHighError, matureSteadyState } from './steady-state';
 import { daysOver, peakOf, type Excursion, type Peak } from './series-stats';
@@ -34,10 +42,17 @@ export interface ForecastOptions {
    * (default) or just 'before' them — 'before' reads like a test taken before the day's dose.
    */
   eventSampling?: 'after' | 'before';
-  /** How samples are taken (see solver.ts); default 'restart'. */
+  /** How odex takes samples (see solver.ts); default 'restart'. */
   sampling?: SamplingMode;
   /** Step limit per segment. */
   maxSteps?: number;
+  /**
+   * Multiplies every feeding of the scenario (the starting one and feeding events): food
+   * offered per day, whether given in grams or as a share of body mass. Default 1.
+   */
+  feedingMultiplier?: number;
+  /** Continue from a saved state (see createForecastSession); the result starts at its day. */
+  from?: ForecastState;
   /** Integrator factory (tests and the benchmark use a mathjs reference); default odex. */
   integrator?: (n: number, tolerances: { relative: number; absolute: number[] }) => SegmentIntegrator;
 }
@@ -103,6 +118,57 @@ export interface ForecastSummary {
   nitrogenBalance: NitrogenBalance;
 }
 
+/**
+ * The water and nitrifiers at one day, just before that day's events, with the conditions
+ * earlier events set — enough to continue the forecast from there (`options.from`).
+ */
+export interface ForecastState {
+  day: number;
+  /** model state vector (model.ts: TAN, NO2, NO3, ORG, KH, plant uptake, reference capacities) */
+  y: readonly number[];
+  temperatureC: number;
+  feeding: Feeding;
+  fishMassG: number;
+  /** active medications and aeration losses: [position among the events before `day`, multiplier] */
+  medications: readonly (readonly [number, number])[];
+  aerationLosses: readonly (readonly [number, number])[];
+  /** last accepted solver step, days (a continued run starts with it, as an uninterrupted one would) */
+  stepHint: number | null;
+  /** identifies the scenario prefix, parameters and feeding multiplier that produced the state */
+  key: string;
+}
+
+/** What the forecast shows at the session's current day (before that day's events). */
+export interface ForecastReading {
+  day: number;
+  tanMgN: number;
+  no2MgN: number;
+  no3MgN: number;
+  orgMgN: number;
+  /** capacities at the water temperature, mg N/day */
+  zones: { zoneId: string; aoMgNPerDay: number; noMgNPerDay: number }[];
+  aoMgNPerDay: number;
+  noMgNPerDay: number;
+}
+
+/** A forecast integrated forward on demand. */
+export interface ForecastSession {
+  /** Current day (the state is just before this day's events). */
+  readonly day: number;
+  /** Samples recorded so far (all sample times before `day`). */
+  readonly samples: number;
+  /** Full-length series buffers; entries at index ≥ `samples` are not yet filled. */
+  readonly series: ForecastSeries;
+  /** Integrates to `day` (≥ the current day, ≤ the horizon); samples before it are then filled. */
+  runTo(day: number): void;
+  /** Integrates to `day` like runTo and returns the state there. */
+  advanceTo(day: number): ForecastState;
+  /** The water and capacities at the current day. */
+  reading(): ForecastReading;
+  /** Runs to the horizon and returns the forecast (the session cannot be used afterwards). */
+  finish(): Forecast;
+}
+
 export interface Forecast {
   series: ForecastSeries;
   summary: ForecastSummary;
@@ -133,8 +199,11 @@ function resolveOptions(scenario: Scenario, options: ForecastOptions) {
   } catch (e) {
     throw optionError('options.parameters', (e as Error).message);
   }
+  const feedingMultiplier = options.feedingMultiplier ?? 1;
+  if (!(Number.isFinite(feedingMultiplier) && feedingMultiplier >= 0)) throw optionError('options.feedingMultiplier', 'Feeding multiplier must be 0 or more.');
   const tol = options.tolerances ?? {};
   return {
+    feedingMultiplier,
     horizon,
     step,
     params,
@@ -146,6 +215,26 @@ function resolveOptions(scenario: Scenario, options: ForecastOptions) {
 
 /** Forecast of an already-parsed scenario (skips schema parsing; for batch callers). */
 export function forecastParsed(scenario: Scenario, options: ForecastOptions = {}): Forecast {
+  return createForecastSession(scenario, options).finish();
+}
+
+/** JSON of what a state depends on before `day` (see ForecastState.key). */
+function prefixKey(scenario: Scenario, options: ForecastOptions, feedingMultiplier: number, day: number): string {
+  const prefix = scenario.events.filter((e) => e.day < day - 1e-9);
+  return JSON.stringify([scenario.tank, scenario.start, scenario.initialWater, scenario.fish, scenario.feeding, options.parameters ?? null, feedingMultiplier, prefix]);
+}
+
+/** Indices (into scenario.events) of the events before `day`, in array order. */
+function prefixIndices(scenario: Scenario, day: number): number[] {
+  const out: number[] = [];
+  scenario.events.forEach((e, i) => {
+    if (e.day < day - 1e-9) out.push(i);
+  });
+  return out;
+}
+
+/** Starts a forecast that integrates forward on demand (see ForecastSession). */
+export function createForecastSession(scenario: Scenario, options: ForecastOptions = {}): ForecastSession {
   const opt = resolveOptions(scenario, options);
   const p = opt.params;
   const tank = scenario.tank;
@@ -155,18 +244,33 @@ export function forecastParsed(scenario: Scenario, options: ForecastOptions = {}
   const model = createModel(zones, V, p);
   const n = model.n;
   const timeline = buildTimeline(scenario, opt.horizon, p);
+  const from = options.from;
+  const t0 = from ? from.day : 0;
+  if (from) {
+    if (!(Number.isFinite(t0) && t0 >= 0 && t0 < opt.horizon)) throw optionError('options.from', 'The saved state must lie before the horizon.');
+    if (from.y.length !== n) throw optionError('options.from', 'The saved state belongs to a tank with other zones.');
+    if (from.key !== prefixKey(scenario, options, opt.feedingMultiplier, t0)) {
+      throw optionError('options.from', 'The saved state belongs to another scenario (tank, start, fish, feeding, parameters or events before its day differ).');
+    }
+  }
 
   // --- conditions that events change -------------------------------------------------
   const phModel = tank.phModel ?? (tank.khDegrees !== undefined && tank.khDegrees > 0 ? 'carbonate' : 'fixed');
   const kh0 = tank.khDegrees ?? 0;
   const co2 = phModel === 'carbonate' ? carbonateCo2(kh0, tank.ph, tank.temperatureC) : 0;
   const tapKh = tank.tapWater.khDegrees ?? kh0;
-  let temperature = tank.temperatureC;
-  let feeding: Feeding = scenario.feeding;
-  let fishMass = timeline.initialFishMassG;
+  const fm = opt.feedingMultiplier;
+  let temperature = from ? from.temperatureC : tank.temperatureC;
+  let feeding: Feeding = from ? from.feeding : scenario.feeding;
+  let fishMass = from ? from.fishMassG : timeline.initialFishMassG;
   const medications = new Map<number, number>();
   const aerationLosses = new Map<number, number>();
-  let feedFlows = feedNitrogenFlows(fishMass, feeding, p);
+  if (from) {
+    const idx = prefixIndices(scenario, t0);
+    for (const [pos, m] of from.medications) medications.set(idx[pos], m);
+    for (const [pos, a] of from.aerationLosses) aerationLosses.set(idx[pos], a);
+  }
+  let feedFlows = feedNitrogenFlows(fishMass, feeding, p, fm);
   const checkFlows = (field: string) => {
     if (feedFlows.toOrg < -1e-12) throw optionError(field, 'Feed parameters give more N out of the food than it holds.');
   };
@@ -194,54 +298,20 @@ export function forecastParsed(scenario: Scenario, options: ForecastOptions = {}
 
   // --- initial state -------------------------------------------------------------------
   const y = new Array<number>(n).fill(0);
-  const w = scenario.initialWater;
-  y[I_TAN] = w.tanMgN ?? tank.tapWater.tanMgN;
-  y[I_NO2] = w.no2MgN ?? tank.tapWater.no2MgN;
-  y[I_NO3] = w.no3MgN ?? tank.tapWater.no3MgN;
-  y[I_ORG] = w.orgMgN ?? 0;
-  y[I_KH] = kh0;
-  const start = scenario.start;
   const act = model.current;
-  if (start.kind === 'new') {
-    // Inoculum per litre at the tank temperature, shared among zones by area.
-    const perL = start.inoculumMgNPerLPerDay ?? p.inoculum;
-    const totalArea = zones.reduce((s, z) => s + z.areaM2, 0);
-    for (let z = 0; z < nz; z++) {
-      const share = zones[z].areaM2 / totalArea;
-      y[aoIndex(z)] = (perL * V * share) / act.activityAo;
-      y[noIndex(z)] = (perL * V * share) / act.activityNo;
-    }
-  } else if (start.kind === 'explicit') {
-    for (const c of start.capacities) {
-      const z = zones.findIndex((zone) => zone.id === c.zoneId);
-      y[aoIndex(z)] = c.aoMgNPerDay / act.activityAo;
-      y[noIndex(z)] = c.noMgNPerDay / act.activityNo;
-    }
+  if (from) {
+    for (let i = 0; i < n; i++) y[i] = from.y[i];
   } else {
-    const load = start.loadMgNPerDay ?? feedFlows.excretedTan + feedFlows.toOrg;
-    let ss;
-    try {
-      ss = matureSteadyState(model, load, kh0);
-    } catch (e) {
-      if (e instanceof LoadTooHighError) {
-        throw optionError(start.loadMgNPerDay === undefined ? 'fish' : 'start.loadMgNPerDay', e.message);
-      }
-      throw e;
-    }
-    y[I_TAN] = w.tanMgN ?? ss.tan + tank.tapWater.tanMgN;
-    y[I_NO2] = w.no2MgN ?? ss.no2 + tank.tapWater.no2MgN;
-    y[I_ORG] = w.orgMgN ?? ss.org;
-    for (let z = 0; z < nz; z++) {
-      y[aoIndex(z)] = ss.capAo[z];
-      y[noIndex(z)] = ss.capNo[z];
-    }
+    initialState(scenario, model, zones, feedFlows, kh0, y, p);
   }
+  const plantStart = y[I_PLANT];
 
   // --- output buffers ------------------------------------------------------------------
+  // Samples on the global grid k·step from the start day on (a continued run lines up with a full one).
   const nGrid = Math.floor(opt.horizon / opt.step + 1e-9);
   const times: number[] = [];
-  for (let k = 0; k <= nGrid; k++) times.push(k * opt.step);
-  if (opt.horizon - times[times.length - 1] > 1e-9) times.push(opt.horizon);
+  for (let j = Math.max(0, Math.ceil(t0 / opt.step - 1e-9)); j <= nGrid; j++) times.push(j * opt.step);
+  if (times.length === 0 || opt.horizon - times[times.length - 1] > 1e-9) times.push(opt.horizon);
   const ns = times.length;
   const alloc = () => new Array<number>(ns).fill(0);
   const series: ForecastSeries = {
@@ -364,7 +434,7 @@ export function forecastParsed(scenario: Scenario, options: ForecastOptions = {}
       }
     }
     fishMass = bp.fishMassG;
-    feedFlows = feedNitrogenFlows(fishMass, feeding, p);
+    feedFlows = feedNitrogenFlows(fishMass, feeding, p, fm);
     model.setConditions(conditions());
   };
 
@@ -379,86 +449,232 @@ export function forecastParsed(scenario: Scenario, options: ForecastOptions = {}
   const integrator = options.integrator
     ? options.integrator(n, tolerances)
     : createOdexIntegrator(n, { tolerances, maxSteps: options.maxSteps, sampling: options.sampling });
+  if (from && from.stepHint !== null && integrator.stepSize !== undefined) integrator.stepSize = from.stepHint;
   const rhs = model.rhs;
 
+  // Breakpoints before the start day were applied in the run that saved the state.
   const bps = timeline.breakpoints;
-  let t = 0;
-  let k = 0;
   let bi = 0;
+  while (bi < bps.length && bps[bi].time < t0 - 1e-9) bi++;
+  let t = t0;
+  let k = 0;
   let segments = 0;
+  let started = false;
+  let finished = false;
   const before = options.eventSampling === 'before';
-  if (bps.length > 0 && bps[0].time === 0) {
-    if (before) record(k++, y);
-    applyBreakpoint(bps[0]);
-    bi = 1;
-  }
-  notePeaks(0);
-  while (true) {
-    const tEnd = bi < bps.length ? bps[bi].time : opt.horizon;
-    let kEnd = k;
-    // Samples at tEnd itself belong to this segment in 'before' mode, to the next in 'after'.
-    while (kEnd < ns && (before ? times[kEnd] <= tEnd + 1e-9 : times[kEnd] < tEnd - 1e-9)) kEnd++;
-    const dt = tEnd - t;
-    balance.feedOfferedMg += feedFlows.offeredN * dt;
-    balance.fishRetainedMg += feedFlows.retained * dt;
-    integrator.integrate(rhs, t, tEnd, y, times, k, kEnd, record);
-    segments++;
-    k = kEnd;
-    t = tEnd;
-    if (bi >= bps.length) break;
-    applyBreakpoint(bps[bi]);
-    notePeaks(t);
-    bi++;
-  }
-  // Samples at the horizon (after any events there).
-  while (k < ns) record(k++, y);
 
-  balance.plantUptakeMg = y[I_PLANT];
-  balance.storedEndMg = stored(y);
-  const inputs = balance.feedOfferedMg - balance.fishRetainedMg + balance.dosedMg + balance.tapWaterMg;
-  const outputs = balance.waterChangeRemovedMg + balance.mediaCleaningMg + balance.plantUptakeMg;
-  balance.residualMg = balance.storedEndMg - balance.storedStartMg - (inputs - outputs);
-  const scale = Math.max(balance.storedStartMg, balance.storedEndMg, inputs, outputs, 1e-300);
-  balance.relativeResidual = balance.residualMg / scale;
-
-  // --- summary -------------------------------------------------------------------------
-  const startLimits = defaultLimits({ ph: tank.ph, temperatureC: tank.temperatureC, chlorideMgL: tank.chlorideMgL }, options.limitChoices);
-  const fixed = options.limits ?? {};
-  const chronic = series.ph.map((ph, i) => fixed.tanChronicMgN ?? epaChronicTan(ph, series.temperatureC[i]));
-  const acute = series.ph.map((ph, i) => fixed.tanAcuteMgN ?? epaAcuteTan(ph, series.temperatureC[i]));
-  const constant = (v: number) => new Array<number>(ns).fill(v);
-  const pick = (a: Peak, b: { value: number; day: number }): Peak => (b.value > a.value ? { value: b.value, day: b.day } : a);
-  const last = ns - 1;
-  const window = Math.min(7, opt.horizon);
-  const recentDose = doses.filter((d) => d.time > opt.horizon - window - 1e-9).reduce((s, d) => s + d.mg, 0) / window;
-  const summary: ForecastSummary = {
-    peaks: {
-      tan: pick(peakOf(series.days, series.tanMgN), eventPeaks.tan),
-      freeNh3: pick(peakOf(series.days, series.freeNh3MgL), eventPeaks.freeNh3),
-      no2: pick(peakOf(series.days, series.no2MgN), eventPeaks.no2),
-      no3: pick(peakOf(series.days, series.no3MgN), eventPeaks.no3),
-    },
-    limits: startLimits,
-    daysOver: {
-      freeNh3: daysOver(series.days, series.freeNh3MgL, constant(fixed.freeNh3MgNH3 ?? startLimits.freeNh3.value)),
-      tanChronic: daysOver(series.days, series.tanMgN, chronic),
-      tanAcute: daysOver(series.days, series.tanMgN, acute),
-      no2: daysOver(series.days, series.no2MgN, constant(fixed.no2MgN ?? startLimits.nitrite.value)),
-    },
-    final: {
-      zones: zones.map((zone, z) => ({
-        zoneId: zone.id,
-        aoMgNPerDay: series.zones[z].ao[last],
-        noMgNPerDay: series.zones[z].no[last],
-        aoCeilingMgNPerDay: model.ceilingAo[z] * act.activityAo,
-        noCeilingMgNPerDay: model.ceilingNo[z] * act.activityNo,
-      })),
-      aoMgNPerDay: series.zones.reduce((s, z) => s + z.ao[last], 0),
-      noMgNPerDay: series.zones.reduce((s, z) => s + z.no[last], 0),
-      loadMgNPerDay: series.loadMgNPerDay[last],
-      recentDoseMgNPerDay: recentDose,
-    },
-    nitrogenBalance: balance,
+  /** Integrates to `stop`; events at `stop` are applied only when `final`. */
+  const advance = (stop: number, final: boolean) => {
+    while (true) {
+      if (!final && t >= stop - 1e-9) return;
+      if (bi < bps.length && bps[bi].time <= t + 1e-9) {
+        // Samples at an event instant show the water after the events ('before': before them).
+        if (before) while (k < ns && times[k] <= t + 1e-9) record(k++, y);
+        applyBreakpoint(bps[bi++]);
+        notePeaks(t);
+        continue;
+      }
+      if (!started) {
+        notePeaks(t);
+        started = true;
+      }
+      if (t >= stop - 1e-9) return;
+      const tEnd = bi < bps.length && bps[bi].time < stop ? bps[bi].time : stop;
+      let kEnd = k;
+      while (kEnd < ns && times[kEnd] < tEnd - 1e-9) kEnd++;
+      const dt = tEnd - t;
+      balance.feedOfferedMg += feedFlows.offeredN * dt;
+      balance.fishRetainedMg += feedFlows.retained * dt;
+      integrator.integrate(rhs, t, tEnd, y, times, k, kEnd, record);
+      segments++;
+      k = kEnd;
+      t = tEnd;
+    }
   };
-  return { series, summary, stats: { ...integrator.stats, segments } };
+
+  // The key only changes when another event falls before the day: reuse it between those.
+  let lastKey: { count: number; last: number; key: string } | null = null;
+  const snapshot = (): ForecastState => {
+    const idx = prefixIndices(scenario, t);
+    const pos = new Map(idx.map((i, j) => [i, j] as const));
+    const lastIdx = idx.length ? idx[idx.length - 1] : -1;
+    if (!lastKey || lastKey.count !== idx.length || lastKey.last !== lastIdx) {
+      lastKey = { count: idx.length, last: lastIdx, key: prefixKey(scenario, options, fm, t) };
+    }
+    return {
+      day: t,
+      y: y.slice(),
+      temperatureC: temperature,
+      feeding,
+      fishMassG: fishMass,
+      medications: [...medications].map(([i, m]) => [pos.get(i) as number, m] as const),
+      aerationLosses: [...aerationLosses].map(([i, a]) => [pos.get(i) as number, a] as const),
+      stepHint: integrator.stepSize ?? null,
+      key: lastKey.key,
+    };
+  };
+  const alive = () => {
+    if (finished) throw new Error('the forecast session has finished');
+  };
+
+  const finish = (): Forecast => {
+    alive();
+    advance(opt.horizon, true);
+    finished = true;
+    // Samples at the horizon (after any events there).
+    while (k < ns) record(k++, y);
+
+    balance.plantUptakeMg = y[I_PLANT] - plantStart;
+    balance.storedEndMg = stored(y);
+    const inputs = balance.feedOfferedMg - balance.fishRetainedMg + balance.dosedMg + balance.tapWaterMg;
+    const outputs = balance.waterChangeRemovedMg + balance.mediaCleaningMg + balance.plantUptakeMg;
+    balance.residualMg = balance.storedEndMg - balance.storedStartMg - (inputs - outputs);
+    const scale = Math.max(balance.storedStartMg, balance.storedEndMg, inputs, outputs, 1e-300);
+    balance.relativeResidual = balance.residualMg / scale;
+
+    // --- summary -------------------------------------------------------------------------
+    const startLimits = defaultLimits({ ph: tank.ph, temperatureC: tank.temperatureC, chlorideMgL: tank.chlorideMgL }, options.limitChoices);
+    const fixed = options.limits ?? {};
+    const chronic = limitSeries(series, fixed.tanChronicMgN, epaChronicTan);
+    const acute = limitSeries(series, fixed.tanAcuteMgN, epaAcuteTan);
+    const constant = (v: number) => new Array<number>(ns).fill(v);
+    const pick = (a: Peak, b: { value: number; day: number }): Peak => (b.value > a.value ? { value: b.value, day: b.day } : a);
+    const last = ns - 1;
+    const window = Math.min(7, opt.horizon - t0);
+    const recentDose = doses.filter((d) => d.time > opt.horizon - window - 1e-9).reduce((s, d) => s + d.mg, 0) / window;
+    const summary: ForecastSummary = {
+      peaks: {
+        tan: pick(peakOf(series.days, series.tanMgN), eventPeaks.tan),
+        freeNh3: pick(peakOf(series.days, series.freeNh3MgL), eventPeaks.freeNh3),
+        no2: pick(peakOf(series.days, series.no2MgN), eventPeaks.no2),
+        no3: pick(peakOf(series.days, series.no3MgN), eventPeaks.no3),
+      },
+      limits: startLimits,
+      daysOver: {
+        freeNh3: daysOver(series.days, series.freeNh3MgL, constant(fixed.freeNh3MgNH3 ?? startLimits.freeNh3.value)),
+        tanChronic: daysOver(series.days, series.tanMgN, chronic),
+        tanAcute: daysOver(series.days, series.tanMgN, acute),
+        no2: daysOver(series.days, series.no2MgN, constant(fixed.no2MgN ?? startLimits.nitrite.value)),
+      },
+      final: {
+        zones: zones.map((zone, z) => ({
+          zoneId: zone.id,
+          aoMgNPerDay: series.zones[z].ao[last],
+          noMgNPerDay: series.zones[z].no[last],
+          aoCeilingMgNPerDay: model.ceilingAo[z] * act.activityAo,
+          noCeilingMgNPerDay: model.ceilingNo[z] * act.activityNo,
+        })),
+        aoMgNPerDay: series.zones.reduce((s, z) => s + z.ao[last], 0),
+        noMgNPerDay: series.zones.reduce((s, z) => s + z.no[last], 0),
+        loadMgNPerDay: series.loadMgNPerDay[last],
+        recentDoseMgNPerDay: recentDose,
+      },
+      nitrogenBalance: balance,
+    };
+    return { series, summary, stats: { ...integrator.stats, segments } };
+  };
+
+  return {
+    get day() {
+      return t;
+    },
+    get samples() {
+      return k;
+    },
+    series,
+    runTo(day: number): void {
+      alive();
+      if (!(day >= t - 1e-9 && day <= opt.horizon + 1e-9)) throw new RangeError(`runTo(${day}): the day must lie between ${t} and the horizon ${opt.horizon}`);
+      advance(day, false);
+    },
+    advanceTo(day: number): ForecastState {
+      this.runTo(day);
+      return snapshot();
+    },
+    reading(): ForecastReading {
+      const zs = zones.map((zone, z) => ({ zoneId: zone.id, aoMgNPerDay: y[aoIndex(z)] * act.activityAo, noMgNPerDay: y[noIndex(z)] * act.activityNo }));
+      return {
+        day: t,
+        tanMgN: y[I_TAN],
+        no2MgN: y[I_NO2],
+        no3MgN: y[I_NO3],
+        orgMgN: y[I_ORG],
+        zones: zs,
+        aoMgNPerDay: zs.reduce((s, z) => s + z.aoMgNPerDay, 0),
+        noMgNPerDay: zs.reduce((s, z) => s + z.noMgNPerDay, 0),
+      };
+    },
+    finish,
+  };
+}
+
+/**
+ * A TAN limit per sample: a fixed value, or the EPA formula at each sample's pH and
+ * temperature — computed once per run of equal (pH, T), since with a fixed pH it rarely changes.
+ */
+function limitSeries(series: ForecastSeries, fixed: number | undefined, formula: (ph: number, t: number) => number): number[] {
+  const n = series.days.length;
+  const out = new Array<number>(n);
+  if (fixed !== undefined) return out.fill(fixed);
+  let ph = NaN;
+  let temp = NaN;
+  let v = 0;
+  for (let i = 0; i < n; i++) {
+    if (series.ph[i] !== ph || series.temperatureC[i] !== temp) {
+      ph = series.ph[i];
+      temp = series.temperatureC[i];
+      v = formula(ph, temp);
+    }
+    out[i] = v;
+  }
+  return out;
+}
+
+/** Day-0 water and populations of a scenario (new, explicit or mature start), written into y. */
+function initialState(scenario: Scenario, model: Model, zones: readonly ResolvedZone[], feedFlows: FeedFlows, kh0: number, y: number[], p: Parameters): void {
+  const tank = scenario.tank;
+  const V = tank.volumeL;
+  const nz = zones.length;
+  const w = scenario.initialWater;
+  y[I_TAN] = w.tanMgN ?? tank.tapWater.tanMgN;
+  y[I_NO2] = w.no2MgN ?? tank.tapWater.no2MgN;
+  y[I_NO3] = w.no3MgN ?? tank.tapWater.no3MgN;
+  y[I_ORG] = w.orgMgN ?? 0;
+  y[I_KH] = kh0;
+  const start = scenario.start;
+  const act = model.current;
+  if (start.kind === 'new') {
+    // Inoculum per litre at the tank temperature, shared among zones by area.
+    const perL = start.inoculumMgNPerLPerDay ?? p.inoculum;
+    const totalArea = zones.reduce((s, z) => s + z.areaM2, 0);
+    for (let z = 0; z < nz; z++) {
+      const share = zones[z].areaM2 / totalArea;
+      y[aoIndex(z)] = (perL * V * share) / act.activityAo;
+      y[noIndex(z)] = (perL * V * share) / act.activityNo;
+    }
+  } else if (start.kind === 'explicit') {
+    for (const c of start.capacities) {
+      const z = zones.findIndex((zone) => zone.id === c.zoneId);
+      y[aoIndex(z)] = c.aoMgNPerDay / act.activityAo;
+      y[noIndex(z)] = c.noMgNPerDay / act.activityNo;
+    }
+  } else {
+    const load = start.loadMgNPerDay ?? feedFlows.excretedTan + feedFlows.toOrg;
+    let ss;
+    try {
+      ss = matureSteadyState(model, load, kh0);
+    } catch (e) {
+      if (e instanceof LoadTooHighError) {
+        throw optionError(start.loadMgNPerDay === undefined ? 'fish' : 'start.loadMgNPerDay', e.message);
+      }
+      throw e;
+    }
+    y[I_TAN] = w.tanMgN ?? ss.tan + tank.tapWater.tanMgN;
+    y[I_NO2] = w.no2MgN ?? ss.no2 + tank.tapWater.no2MgN;
+    y[I_ORG] = w.orgMgN ?? ss.org;
+    for (let z = 0; z < nz; z++) {
+      y[aoIndex(z)] = ss.capAo[z];
+      y[noIndex(z)] = ss.capNo[z];
+    }
+  }
 }

@@ -20,6 +20,7 @@
  * The one deliberate floor: crowding 1 − C/Cmax is taken as 0 above the ceiling (a biofilm
  * over its area ceiling does not grow; it still decays).
  */
+import { zeros } from './arrays';
 import { ammoniaPKa, carbonatePK1, CO2_PER_DKH, oxygenSaturation } from './chemistry';
 import type { Parameters } from './parameters';
 import type { ResolvedZone } from './presets';
@@ -68,8 +69,8 @@ export interface Model {
   /** mg N held in biomass per unit of reference capacity (AO, NO). */
   readonly biomassNPerCapacity: { ao: number; no: number };
   /** Ceilings Cmax (reference capacity, mg N/d) per zone. */
-  readonly ceilingAo: Float64Array;
-  readonly ceilingNo: Float64Array;
+  readonly ceilingAo: number[];
+  readonly ceilingNo: number[];
   /** Current segment's derived values, read by the output layer. */
   readonly current: {
     activityAo: number;
@@ -89,7 +90,7 @@ export interface Model {
    * Substrate-and-condition factors s of each zone (the Monod, O2, light, medication, pH and
    * free-ammonia terms) at the given water, written into outAo / outNo.
    */
-  saturations(tan: number, no2: number, kh: number, outAo: Float64Array, outNo: Float64Array): void;
+  saturations(tan: number, no2: number, kh: number, outAo: number[], outNo: number[]): void;
   /** pH for a KH value under the current conditions (carbonate mode), else the fixed pH. */
   phOf(kh: number): number;
   /** Free NH3 share for a KH value under the current conditions. */
@@ -115,10 +116,10 @@ export function createModel(zones: readonly ResolvedZone[], volumeL: number, p: 
   const bnNo = (p.nPerCod * p.codPerVss * p.yieldNo) / p.muMaxNo;
 
   // Ceiling: areal rate (given at 24 °C, Nijhof & Bovendeur 1990) × area, moved to 20 °C.
-  const ceilingAo = new Float64Array(nz);
-  const ceilingNo = new Float64Array(nz);
-  const invCeilAo = new Float64Array(nz);
-  const invCeilNo = new Float64Array(nz);
+  const ceilingAo = zeros(nz);
+  const ceilingNo = zeros(nz);
+  const invCeilAo = zeros(nz);
+  const invCeilNo = zeros(nz);
   for (let z = 0; z < nz; z++) {
     ceilingAo[z] = (p.arealCapacity * zones[z].areaM2) / Math.pow(p.thetaAo, 4);
     ceilingNo[z] = (p.arealCapacity * zones[z].areaM2) / Math.pow(p.thetaNo, 4);
@@ -126,15 +127,15 @@ export function createModel(zones: readonly ResolvedZone[], volumeL: number, p: 
     invCeilNo[z] = ceilingNo[z] > 0 ? 1 / ceilingNo[z] : Infinity;
   }
   // Apparent half-saturation: weak flow thickens the diffusion layer (K / flow).
-  const kAo = new Float64Array(nz);
-  const kNo = new Float64Array(nz);
+  const kAo = zeros(nz);
+  const kNo = zeros(nz);
   for (let z = 0; z < nz; z++) {
     kAo[z] = p.kTanAo / zones[z].flow;
     kNo[z] = p.kNo2No / zones[z].flow;
   }
   // Per-segment constants.
-  const gAo = new Float64Array(nz); // O2 × light × medication factors
-  const gNo = new Float64Array(nz);
+  const gAo = zeros(nz); // O2 × light × medication factors
+  const gNo = zeros(nz);
   let actAo = 1;
   let actNo = 1;
   let muAo = 0;
@@ -294,7 +295,7 @@ export function createModel(zones: readonly ResolvedZone[], volumeL: number, p: 
     return dy;
   }
 
-  function saturations(tan: number, no2: number, kh: number, outAo: Float64Array, outNo: Float64Array): void {
+  function saturations(tan: number, no2: number, kh: number, outAo: number[], outNo: number[]): void {
     const fnh3 = carbonate ? (kh > 0 ? kh / (kh + nh3Coef) : 0) : fixedFnh3;
     const fph = carbonate ? (kh > 0 ? phFactor(phBase + Math.log10(kh), p) : 0) : fixedFph;
     const inhib = ki / (ki + tan * fnh3 * toNH3);

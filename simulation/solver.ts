@@ -1,6 +1,6 @@
 /**
- * Segment integrator on odex (Hairer & Wanner's ODEX: GBS extrapolation of the explicit
- * midpoint rule, with dense output). Events are discontinuities: the caller integrates each
+ * The segment-integrator interface, and an implementation on odex (Hairer & Wanner's ODEX:
+ * GBS extrapolation of the explicit midpoint rule, with dense output). Events are discontinuities: the caller integrates each
  * segment between events separately and changes the state or the model's constants between
  * them, so no step ever straddles a jump.
  *
@@ -53,6 +53,11 @@ export interface SegmentIntegrator {
    */
   integrate(f: Derivative, t0: number, t1: number, y: number[], times: ArrayLike<number>, kStart: number, kEnd: number, sink: SampleSink): void;
   readonly stats: IntegrationStats;
+  /**
+   * Step size the next segment starts with, days (restart sampling carries it over segment
+   * ends); settable so a run continued from a saved state starts as the uninterrupted one would.
+   */
+  stepSize?: number;
 }
 
 export type SamplingMode = 'restart' | 'dense';
@@ -114,6 +119,12 @@ function restartIntegrator(solver: Solver, stats: IntegrationStats, count: Count
   };
   return {
     stats,
+    get stepSize() {
+      return h;
+    },
+    set stepSize(v: number) {
+      if (v > 0 && Number.isFinite(v)) h = v;
+    },
     integrate(f, t0, t1, y, times, kStart, kEnd, sink) {
       let k = kStart;
       while (k < kEnd && times[k] <= t0) sink(k++, y);

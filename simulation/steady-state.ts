@@ -6,6 +6,7 @@
  * Per zone, growth = decay gives μ·s(S)·(1 − C/Cmax) = b, so C(S) = Cmax·(1 − b/(μ·s(S)))
  * where that is positive, else 0 (the zone cannot hold a population at that S).
  */
+import { zeros } from './arrays';
 import type { Model } from './model';
 
 export interface SteadyState {
@@ -13,8 +14,8 @@ export interface SteadyState {
   no2: number;
   org: number;
   /** reference capacities, mg N/d at 20 °C */
-  capAo: Float64Array;
-  capNo: Float64Array;
+  capAo: number[];
+  capNo: number[];
   /** TAN oxidised per day, mg N/d */
   oxidation: number;
 }
@@ -44,10 +45,10 @@ function bisect(fn: (x: number) => number, hi: number): number {
 export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: number): SteadyState {
   const nz = model.zones.length;
   const c = model.current;
-  const sA = new Float64Array(nz);
-  const sN = new Float64Array(nz);
-  const capAo = new Float64Array(nz);
-  const capNo = new Float64Array(nz);
+  const sA = zeros(nz);
+  const sN = zeros(nz);
+  const capAo = zeros(nz);
+  const capNo = zeros(nz);
   const V = model.volumeL;
   const plantTan = (tan: number) => (c.plantUptake > 0 ? (c.plantUptake * tan) / (model.params.kTanPlants + tan) : 0) * V;
 

@@ -12,6 +12,8 @@ import type { Parameters } from './parameters';
 
 export type TimelineAction =
   | { kind: 'event'; index: number; event: ScenarioEvent }
+  /** One of the tank's routine water changes (scenario.tank.routineWaterChange); index −1. */
+  | { kind: 'routine'; index: -1; event: Extract<ScenarioEvent, { type: 'water-change' }> }
   | { kind: 'end-medication'; index: number }
   | { kind: 'end-aeration-loss'; index: number };
 
@@ -103,6 +105,14 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
       if (end <= horizonDays) raw.push({ time: end, order: 0, action: { kind, index } });
     }
   });
+  // Routine water changes come after the same day's timeline events (order above every 2i+1).
+  const routine = scenario.tank.routineWaterChange;
+  if (routine) {
+    for (let k = 1; k * routine.everyDays <= horizonDays + 1e-9; k++) {
+      const t = k * routine.everyDays;
+      raw.push({ time: t, order: Number.MAX_SAFE_INTEGER, action: { kind: 'routine', index: -1, event: { type: 'water-change', day: t, percent: routine.percent } } });
+    }
+  }
   raw.sort((a, b) => a.time - b.time || a.order - b.order);
 
   const breakpoints: Breakpoint[] = [];

@@ -76,6 +76,16 @@ export const tankSchema = z
     plants: z.enum(PLANTING_LEVELS).default('none'),
     /** Chloride, mg Cl/L, for the chloride-based nitrite limit. */
     chlorideMgL: z.number().min(0).max(20000).optional(),
+    /**
+     * The keeper's usual water change, repeated every `everyDays` from day `everyDays` to the
+     * horizon, beside the timeline's own events. Absent: none.
+     */
+    routineWaterChange: z
+      .object({
+        percent: z.number().gt(0, 'Percent must be above 0.').max(90, 'At most 90 %.'),
+        everyDays: z.number().gt(0, 'Must be above 0 days.').max(365, 'At most 365 days.'),
+      })
+      .optional(),
   })
   .superRefine((t, ctx) => {
     const seen = new Set<string>();

@@ -13,14 +13,23 @@
  * full horizon and against the whole ensemble, and if a member outside the bounding set
  * breaks the 90th-percentile bound it joins the set and the search runs again.
  *
- * The engine has no resumable state, so each candidate is forecast from day 0.
+ * Resuming: a candidate differs from the plan committed so far only by its new batch, so for
+ * each bounding member the committed plan runs once, in a forecast session that keeps the
+ * state at every possible day it passes; a candidate batch on day d is then forecast from
+ * the state at d (the engine's `from` option) and judged on the committed run's samples
+ * before d plus its own from d on — the same series as a run from day 0, to solver
+ * tolerance, at the cost of the days after d only. A candidate is judged every
+ * `EARLY_CHECK_DAYS` as its forecast runs and dropped at its first sample over a limit — the
+ * verdict is the same, since a run is unsafe exactly when some sample crosses; only the
+ * re-judging of the day before the chosen one runs in full, to name the limit that sets the
+ * pace (the highest peak ratio).
  */
 import type { FishGroup, Scenario, ScenarioEvent } from '../../shared/schemas/scenario';
-import { forecastParsed } from '../forecast';
+import { createForecastSession, forecastParsed, type ForecastSeries, type ForecastSession, type ForecastState } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
-import { bandExplanation } from './ensemble';
+import { bandExplanation, memberOptions } from './ensemble';
 import { describeLimit, describeOutcome, limitByKey, whyLimitMatters } from './explain';
-import { checkAgainstEnsemble, createJudge, ensembleForecasts, type UpperEdgeJudge } from './judge';
+import { checkAgainstEnsemble, createJudge, ensembleForecasts, judgeSeries, type UpperEdgeJudge } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { truncateEvents, withEvents } from './scenario-edit';
 import { ESTIMATE_CAUTIONS } from './cautions';
@@ -106,6 +115,104 @@ interface SearchResult {
   paceLimit: LimitKey | null;
 }
 
+interface SavedDay {
+  state: ForecastState;
+  /** samples of the committed run before the day */
+  samples: number;
+  /** largest value/limit per limit over those samples (computed on first use) */
+  prefixRatios: number[] | null;
+}
+
+interface CommittedRun {
+  session: ForecastSession;
+  saved: Map<number, SavedDay>;
+}
+
+/** Samples [from, to) of a series (the part a judge reads). */
+function sliceOf(s: ForecastSeries, from: number, to: number) {
+  return {
+    days: s.days.slice(from, to),
+    tanMgN: s.tanMgN.slice(from, to),
+    freeNh3MgL: s.freeNh3MgL.slice(from, to),
+    no2MgN: s.no2MgN.slice(from, to),
+    ph: s.ph.slice(from, to),
+    temperatureC: s.temperatureC.slice(from, to),
+  };
+}
+
+/** Days forecast between checks of a candidate against the limits (see resumingJudge). */
+const EARLY_CHECK_DAYS = 2;
+
+/**
+ * Judges "committed batches + one more batch" on the bounding set, resuming each member's
+ * forecast from the committed plan's state on the new batch's day (see the module comment).
+ */
+function resumingJudge(scenario: Scenario, fish: FishGroup, judge: UpperEdgeJudge, committed: readonly Batch[], days: readonly number[]) {
+  const base = withEvents(scenario, batchEvents(fish, committed));
+  // Past the last possible day (a session needs a horizon above 0 and above every state it saves).
+  const sessionHorizon = days[days.length - 1] + 1;
+  const sessionScenario = truncateEvents(base, sessionHorizon);
+  const runs = new Map<number, CommittedRun>();
+  const limits = judge.limits;
+
+  const savedDay = (run: CommittedRun, day: number): SavedDay => {
+    const have = run.saved.get(day);
+    if (have) return have;
+    // Keep the state at every possible day passed on the way: bisection comes back to them.
+    for (const d of days) {
+      if (d < run.session.day - 1e-9 || d > day) continue;
+      const state = run.session.advanceTo(d);
+      run.saved.set(d, { state, samples: run.session.samples, prefixRatios: null });
+    }
+    const saved = run.saved.get(day);
+    if (!saved) throw new Error(`no saved state for day ${day}: batch days must be possible days`);
+    return saved;
+  };
+
+  /** `full`: judge the whole settling period even once a limit is crossed, to name the worst limit. */
+  return (batch: Batch, full = false): { safe: boolean; binding: LimitKey } => {
+    const horizon = batch.day + SETTLE_DAYS;
+    const candidate = truncateEvents(withEvents(base, batchEvents(fish, [batch])), horizon);
+    let worstRatio = -Infinity;
+    let binding: LimitKey = limits[0].key;
+    for (const m of judge.bounding) {
+      judge.forecastsRun++;
+      const options = memberOptions(m, judge.options);
+      let run = runs.get(m.index);
+      if (!run) {
+        run = { session: createForecastSession(sessionScenario, { ...options, horizonDays: sessionHorizon }), saved: new Map() };
+        runs.set(m.index, run);
+      }
+      const saved = savedDay(run, batch.day);
+      saved.prefixRatios ??= judgeSeries(sliceOf(run.session.series, 0, saved.samples), limits).limits.map((v) => v.peakRatio);
+      const ratios = saved.prefixRatios.slice();
+      const after = createForecastSession(candidate, { ...options, horizonDays: horizon, from: saved.state });
+      // Judge as the forecast goes, a few days at a time: an unsafe candidate usually crosses
+      // within days of its batch and needs no more (unless its worst limit must be named).
+      let judged = 0;
+      for (let d = batch.day + EARLY_CHECK_DAYS; ; d += EARLY_CHECK_DAYS) {
+        const end = d >= horizon;
+        if (end) after.finish();
+        else after.runTo(d);
+        const upTo = end ? after.series.days.length : after.samples;
+        judgeSeries(sliceOf(after.series, judged, upTo), limits).limits.forEach((v, j) => (ratios[j] = Math.max(ratios[j], v.peakRatio)));
+        judged = upTo;
+        if (end || (!full && ratios.some((r) => r > 1))) break;
+      }
+      let memberWorst = -Infinity;
+      ratios.forEach((r, j) => {
+        if (r > memberWorst) memberWorst = r;
+        if (r > worstRatio) {
+          worstRatio = r;
+          binding = limits[j].key;
+        }
+      });
+      if (memberWorst > 1) break; // one unsafe member settles it
+    }
+    return { safe: worstRatio <= 1, binding };
+  };
+}
+
 /** Best schedule on the judge's current bounding set, or null. */
 function search(
   scenario: Scenario,
@@ -116,9 +223,17 @@ function search(
 ): SearchResult | null {
   let best: SearchResult | null = null;
   let lastUnsafe: LimitKey | null = null;
-  const safe = (batches: Batch[]) => {
-    const last = batches[batches.length - 1].day;
-    const v = judge.judge(withEvents(scenario, batchEvents(fish, batches)), last + SETTLE_DAYS);
+  // One resuming judge per set of committed batches.
+  const resumers = new Map<string, ReturnType<typeof resumingJudge>>();
+  const safe = (batches: Batch[], full = false) => {
+    const committed = batches.slice(0, -1);
+    const key = committed.map((b) => `${b.day}:${b.count}`).join(',');
+    let resumer = resumers.get(key);
+    if (!resumer) {
+      resumer = resumingJudge(scenario, fish, judge, committed, days);
+      resumers.set(key, resumer);
+    }
+    const v = resumer(batches[batches.length - 1], full);
     if (!v.safe) lastUnsafe = v.binding;
     return v.safe;
   };
@@ -161,7 +276,7 @@ function search(
         else lo = mid;
       }
       if (lo > idx) {
-        safe([...batches, { day: days[lo], count: counts[k] }]); // re-judge the day before to name its limit (cheap: fails fast)
+        safe([...batches, { day: days[lo], count: counts[k] }], true); // re-judge the day before in full to name its worst limit
         paceLimit = lastUnsafe;
       }
       batches.push({ day: days[hi], count: counts[k] });

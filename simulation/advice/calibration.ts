@@ -20,7 +20,7 @@
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { inv } from 'mathjs';
 import type { Scenario } from '../../shared/schemas/scenario';
-import { forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
+import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
 import { MOLAR_MASS } from '../units';
 import { ESTIMATE_CAUTIONS } from './cautions';
@@ -83,10 +83,10 @@ interface Base {
 
 /** Day-0 capacities and water of the scenario as described (the prior), before any day-0 event. */
 function baseState(scenario: Scenario): Base {
-  const f = forecastParsed({ ...scenario, events: [] }, { horizonDays: 0.01, stepDays: 0.01 });
+  const r = createForecastSession({ ...scenario, events: [] }, { horizonDays: 0.01 }).reading();
   return {
-    start: f.series.zones.map((z) => ({ zoneId: z.zoneId, ao: z.ao[0], no: z.no[0] })),
-    water: { tanMgN: f.series.tanMgN[0], no2MgN: f.series.no2MgN[0], no3MgN: f.series.no3MgN[0], orgMgN: f.series.orgMgN[0] },
+    start: r.zones.map((z) => ({ zoneId: z.zoneId, ao: z.aoMgNPerDay, no: z.noMgNPerDay })),
+    water: { tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN, orgMgN: r.orgMgN },
   };
 }
 

@@ -19,7 +19,6 @@ import { PARAMETERS, PARAMETER_KEYS, type ParameterKey, type ParameterOverrides 
 import { latinHypercube, rangeScale, scaleUnit } from './latin-hypercube';
 import { seriesQuantiles } from './quantiles';
 import { seededRandom } from './random';
-import { scaleFeeding } from './scenario-edit';
 
 /** Smallest ensemble the band is given for (issue 4: ≥ 64 members). */
 export const MIN_BAND_MEMBERS = 64;
@@ -70,9 +69,14 @@ export function sampleEnsemble(spec: EnsembleSpec = {}): EnsembleMember[] {
   });
 }
 
+/** The member's forecast options: its parameters, and its feeding draw on top of any multiplier given. */
+export function memberOptions(member: EnsembleMember, options: ForecastOptions = {}): ForecastOptions {
+  return { ...options, parameters: member.parameters, feedingMultiplier: (options.feedingMultiplier ?? 1) * member.feedingMultiplier };
+}
+
 /** The forecast of one member (the engine called directly). */
 export function forecastMember(scenario: Scenario, member: EnsembleMember, options: ForecastOptions = {}): Forecast {
-  return forecastParsed(scaleFeeding(scenario, member.feedingMultiplier), { ...options, parameters: member.parameters });
+  return forecastParsed(scenario, memberOptions(member, options));
 }
 
 export interface Band {

@@ -83,8 +83,17 @@ export function judgeSeries(f: JudgedSeries, limits: readonly AppliedLimit[]): F
     let peakDay = 0;
     let firstDayOver: number | null = null;
     let over = 0;
+    // The limit follows pH and temperature, which change seldom with a fixed pH: recompute on change only.
+    let ph = NaN;
+    let temp = NaN;
+    let lim = 0;
     for (let i = 0; i < values.length; i++) {
-      const r = values[i] / limitAt(limit, f, i);
+      if (f.ph[i] !== ph || f.temperatureC[i] !== temp) {
+        ph = f.ph[i];
+        temp = f.temperatureC[i];
+        lim = limitAt(limit, f, i);
+      }
+      const r = values[i] / lim;
       if (r > peakRatio) {
         peakRatio = r;
         peakValue = values[i];

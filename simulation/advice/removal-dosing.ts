@@ -14,6 +14,7 @@
 import type { FishGroup, Scenario, ScenarioEvent } from '../../shared/schemas/scenario';
 import { fishMassG } from '../bioload';
 import { ammoniaSolutionForDose, ammoniumChlorideForDose, type AmmoniaSolution } from '../dosing';
+import { steadyStateCapacity } from '../capacity';
 import { forecastParsed, type Forecast } from '../forecast';
 import { DEFAULT_PARAMETERS } from '../parameters';
 import { adviceContext, type AdviceSettings } from './advice-context';
@@ -23,7 +24,7 @@ import { bandExplanation } from './ensemble';
 import { describeOutcome } from './explain';
 import { settledTankAccepts } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
-import { withEvents, withStart } from './scenario-edit';
+import { withEvents } from './scenario-edit';
 import { formatValue, type AppliedLimit } from './tank-limits';
 
 export interface RemovalRequest {
@@ -94,13 +95,8 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   const keptShare = massBefore > 0 ? massAfter / massBefore : 0;
 
   // Target: the mature capacity for the stocking after the restock.
-  const restocked: Scenario = withStart(
-    { ...scenario, fish: [...scenario.fish.map((f) => ({ ...f })), ...restock], events: [] },
-    { kind: 'mature' },
-  );
   // Remaining + restock: remove the leaving fish from the list first.
-  restocked.fish = [...subtract(scenario.fish, removed), ...restock];
-  const target = capacityAt(forecastParsed(restocked, { horizonDays: 1, stepDays: 1 }), 0);
+  const target = steadyStateCapacity({ ...scenario, fish: [...subtract(scenario.fish, removed), ...restock] }).aoMgNPerDay;
 
   const removalEvents: ScenarioEvent[] = removed.map((g) => ({ type: 'remove-fish', day: removalDay, species: g.species, name: g.species ? undefined : g.name, count: g.count }));
   const restockEvents: ScenarioEvent[] = restock.map((g) => ({ type: 'add-fish', day: restockDay, fish: g }));

@@ -81,3 +81,11 @@ describe('splitCount', () => {
     expect(splitCount(5, 5)).toEqual([1, 1, 1, 1, 1]);
   });
 });
+
+describe('fastestSafeSchedule with a single possible day', () => {
+  it('judges the one allowed day (day 0) without a search horizon of 0 days (common practice: small groups go in at once)', () => {
+    const advice = fastestSafeSchedule({ scenario: matureTank(), fish: { species: 'platy', count: 2 }, constraints: { allowedDays: [0] } });
+    expect(advice.status).toBe('all-at-once-is-safe');
+    expect(advice.batches).toEqual([{ day: 0, count: 2 }]);
+  });
+});

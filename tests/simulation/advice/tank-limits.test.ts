@@ -40,3 +40,11 @@ describe('tankLimits', () => {
     expect(() => tankLimits({ ph: 7, temperatureC: 25 }, { sensitivityFactor: 1.5 })).toThrow(RangeError);
   });
 });
+
+describe('one source of truth for per-tank limits', () => {
+  it('the advice layer’s tankLimits is the engine’s (simulation/limits.ts)', async () => {
+    const engine = await import('../../../simulation/limits');
+    expect(tankLimits).toBe(engine.tankLimits);
+    expect(engine.tankLimits({ ph: 7, temperatureC: 25 }, { sensitivityFactor: 0.5 })[0].value).toBeCloseTo(0.0095, 10); // CCME 0.019 × 0.5
+  });
+});
