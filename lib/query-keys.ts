@@ -8,9 +8,43 @@ export const tankKeys = {
   all: ['tanks'] as const,
   list: () => [...tankKeys.all, 'list'] as const,
   detail: (id: string) => [...tankKeys.all, 'detail', id] as const,
+  /** A page of a tank's water tests (under the tank, so invalidating `all` refreshes them too). */
+  readings: (id: string, page: number, pageSize: number) => [...tankKeys.all, 'readings', id, page, pageSize] as const,
+  readingsOf: (id: string) => [...tankKeys.all, 'readings', id] as const,
+};
+
+export const preferenceKeys = {
+  all: ['preferences'] as const,
+  mine: () => [...preferenceKeys.all, 'mine'] as const,
 };
 
 export const devKeys = {
   all: ['dev'] as const,
   outbox: () => [...devKeys.all, 'outbox'] as const,
+};
+
+export const planKeys = {
+  all: ['plans'] as const,
+  list: () => [...planKeys.all, 'list'] as const,
+  detail: (id: string) => [...planKeys.all, 'detail', id] as const,
+  /** A saved plan's server forecast, per saved version (`updatedAt`). */
+  forecast: (id: string, version: string) => [...planKeys.all, 'forecast', id, version] as const,
+};
+
+export const clubKeys = {
+  all: ['clubs'] as const,
+  list: () => [...clubKeys.all, 'list'] as const,
+  detail: (id: string) => [...clubKeys.all, 'detail', id] as const,
+  shares: (id: string) => [...clubKeys.all, 'shares', id] as const,
+  share: (clubId: string, shareId: string) => [...clubKeys.all, 'share', clubId, shareId] as const,
+  invite: (token: string) => [...clubKeys.all, 'invite', token] as const,
+};
+
+export const lessonKeys = {
+  all: ['lessons'] as const,
+  list: () => [...lessonKeys.all, 'list'] as const,
+  detail: (id: string) => [...lessonKeys.all, 'detail', id] as const,
+  shared: (token: string) => [...lessonKeys.all, 'shared', token] as const,
+  /** Share links of a plan or lesson (kept here with the public view they open). */
+  links: (itemType: string, itemId: string) => ['share-links', itemType, itemId] as const,
 };

@@ -3,13 +3,23 @@ import express, { type Express } from 'express';
 import helmet from 'helmet';
 import type { AppDeps } from './deps.js';
 import { errorHandler, notFound } from './errors.js';
+import { createIdempotency } from './middleware/idempotency.js';
 import { noStore, requestGuards } from './middleware/request-guards.js';
 import { authRouter } from './routes/auth.js';
 import { clubsRouter } from './routes/clubs.js';
+import { commentsRouter } from './routes/comments.js';
+import { invitesRouter } from './routes/invites.js';
+import { clubLessonsRouter, lessonsRouter } from './routes/lessons.js';
+import { shareLinksRouter, sharedViewRouter } from './routes/share-links.js';
+import { unsubscribeConfirmRouter, unsubscribeRouter } from './routes/unsubscribe.js';
 import { devRouter } from './routes/dev.js';
 import { healthRouter } from './routes/health.js';
 import { meRouter } from './routes/me.js';
+import { preferencesRouter } from './routes/preferences.js';
 import { tanksRouter } from './routes/tanks.js';
+import { adviceRouter } from './routes/advice.js';
+import { forecastsRouter } from './routes/forecasts.js';
+import { plansRouter } from './routes/plans.js';
 import { createSessionMiddleware } from './session.js';
 import { staticSite } from './static-site.js';
 
@@ -17,7 +27,9 @@ import { staticSite } from './static-site.js';
 export const JSON_BODY_LIMIT = '100kb';
 
 /** Builds the Express app (no listen: index.ts listens, tests use supertest). */
-export function createApp(deps: AppDeps): Express & { sessionStore: { close(): void } } {
+export function createApp(
+  deps: AppDeps,
+): Express & { sessionStore: { close(): void }; idempotency: { close(): Promise<void> } } {
   const { config, logger } = deps;
   const app = express();
   app.disable('x-powered-by');
@@ -51,21 +63,37 @@ export function createApp(deps: AppDeps): Express & { sessionStore: { close(): v
 
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(config, deps.sessionPool, logger);
 
+  const idempotency = createIdempotency(config.databaseUrl, logger);
+
   const api = express.Router();
   api.use(noStore, requestGuards, express.json({ limit: JSON_BODY_LIMIT, type: 'application/json' }), sessionMiddleware);
+  // Idempotency-Key on signed-in POST routes (server/middleware/idempotency.ts).
+  api.use(idempotency.middleware);
   api.use('/health', healthRouter(deps));
   api.use('/auth', authRouter(deps));
+  api.use('/me/preferences', preferencesRouter(deps));
   api.use('/me', meRouter(deps));
+  // Plans, forecasts and advice: /tanks/:tankId/plans|advice/*|ensemble|calibration|capacity-test and /plans/*.
+  api.use(plansRouter(deps), forecastsRouter(deps), adviceRouter(deps));
   api.use('/tanks', tanksRouter(deps));
+  api.use('/clubs/:clubId/lessons', clubLessonsRouter(deps));
+  api.use('/clubs/:clubId/shares/:shareId/comments', commentsRouter(deps));
   api.use('/clubs', clubsRouter(deps));
+  api.use('/invites', invitesRouter(deps));
+  api.use('/lessons', lessonsRouter(deps));
+  api.use('/share-links', shareLinksRouter(deps));
+  api.use('/share', sharedViewRouter(deps));
+  api.use('/unsubscribe', unsubscribeRouter(deps));
   if (config.env !== 'production' && config.mailFakeUrl) api.use('/dev', devRouter(deps));
   if (deps.extraApiRoutes) api.use(deps.extraApiRoutes);
   api.use((_req, _res, next) => next(notFound('No such API route.')));
   api.use(errorHandler(logger));
+  // The unsubscribe confirmation is a plain HTML form post (see routes/unsubscribe.ts).
+  app.use('/api/unsubscribe', noStore, unsubscribeConfirmRouter(deps));
   app.use('/api', api);
 
   app.use(staticSite(config.staticDir));
   app.use(errorHandler(logger));
 
-  return Object.assign(app, { sessionStore: store });
+  return Object.assign(app, { sessionStore: store, idempotency: { close: idempotency.close } });
 }

@@ -28,6 +28,8 @@ const envSchema = z
     STATIC_DIR: z.string().min(1).default('dist'),
     /** Express "trust proxy": which hops may set X-Forwarded-For/-Proto. */
     TRUST_PROXY: z.string().min(1).default('loopback'),
+    /** Background jobs (reminders, alerts) in this process: on, or off (tests that do not need them). */
+    JOBS: z.enum(['on', 'off']).default('on'),
   })
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
@@ -49,6 +51,7 @@ export interface Config {
   mailFakeUrl?: string;
   staticDir: string;
   trustProxy: string | number | boolean;
+  jobsEnabled: boolean;
 }
 
 export class ConfigError extends Error {
@@ -97,5 +100,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     mailFakeUrl: e.NODE_ENV === 'production' ? undefined : e.MAIL_FAKE_URL,
     staticDir: path.resolve(e.STATIC_DIR),
     trustProxy: parseTrustProxy(e.TRUST_PROXY),
+    jobsEnabled: e.JOBS === 'on',
   };
 }

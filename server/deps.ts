@@ -4,6 +4,7 @@ import type { DataSource } from 'typeorm';
 import type { BackgroundTasks } from './background.js';
 import type { Config } from './config.js';
 import type { Logger } from './logger.js';
+import type { JobQueue } from './jobs/runner.js';
 import type { Mailer } from './mail/mailer.js';
 
 /** Everything the app needs from outside; built by index.ts, or by the API tests. */
@@ -17,4 +18,6 @@ export interface AppDeps {
   background: BackgroundTasks;
   /** Mounted under /api before the 404 handler (tests use it for a route that throws). */
   extraApiRoutes?: Router;
+  /** The PostgreSQL-backed job queue (pg-boss); absent when jobs are off (JOBS=off, most API tests). */
+  jobs?: JobQueue;
 }

@@ -72,10 +72,24 @@ function isDatabaseUnavailable(err: unknown): boolean {
   );
 }
 
+/** The request path with long (id- or token-like) segments hidden: a path may carry a token. */
+function routeLabel(req: Parameters<ErrorRequestHandler>[1]): string {
+  return (req.originalUrl.split('?')[0] ?? '').replace(/[^/]{20,}/g, ':value');
+}
+
 /** The one error handler: known errors as they are, anything else as a generic 500. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, next) => {
-    if (res.headersSent) return next(err);
+    if (res.headersSent) {
+      // express-session reports a failed end-of-request save (database gone) after the answer
+      // was written. Passing it on would make Express destroy the socket and cut off an answer
+      // already sent; log it instead. An answer still incomplete is cut off as before.
+      if (res.writableEnded) {
+        logger.log('warn', 'request.error_after_answer', { method: req.method, error: err instanceof Error ? err.message : String(err) });
+        return;
+      }
+      return next(err);
+    }
     let appError = err instanceof AppError ? err : fromBodyParser(err);
     if (!appError) {
       appError = isDatabaseUnavailable(err) ? serviceUnavailable() : internalError();
@@ -84,6 +98,16 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
         path: req.path,
         error: err instanceof Error ? `${err.name}: ${err.message}` : String(err),
         stack: err instanceof Error ? err.stack : undefined,
+      });
+    }
+    if (appError.status === 401 || appError.status === 403) {
+      // ASVS 16.3.2: denied access is logged (path with ids and tokens hidden).
+      logger.log('warn', 'access.denied', {
+        method: req.method,
+        route: routeLabel(req),
+        status: appError.status,
+        code: appError.code,
+        userId: (req as { session?: { userId?: string } }).session?.userId,
       });
     }
     if (appError.headers) res.set(appError.headers);

@@ -3,6 +3,7 @@ import { createApp } from './app.js';
 import { ConfigError, loadConfig } from './config.js';
 import { consoleLogger } from './logger.js';
 import { buildDeps } from './runtime.js';
+import { startJobs, type JobRunner } from './jobs/runner.js';
 
 /** Longest wait for in-flight requests at shutdown before giving up. */
 const SHUTDOWN_GRACE_MS = 15_000;
@@ -20,6 +21,14 @@ async function main(): Promise<void> {
     await deps.dataSource.destroy();
     await deps.sessionPool.end();
     process.exit(1);
+  }
+
+  // Reminders and alerts run from the PostgreSQL-backed queue in every server process.
+  let jobs: JobRunner | undefined;
+  if (config.jobsEnabled) {
+    jobs = await startJobs(deps);
+    deps.jobs = jobs;
+    logger.log('info', 'boot.jobs_started', {});
   }
 
   const app = createApp(deps);
@@ -42,7 +51,9 @@ async function main(): Promise<void> {
     server.close(async (err) => {
       try {
         await deps.background.drain();
+        await jobs?.stop();
         app.sessionStore.close();
+        await app.idempotency.close();
         await deps.sessionPool.end();
         await deps.dataSource.destroy();
         deps.mailer.close();

@@ -15,6 +15,10 @@ import { User } from './entities/user.js';
 import { isCommonPassword } from './security/common-passwords.js';
 import { hashPassword, verifyPassword } from './services/passwords.js';
 import { DEMO_PEOPLE } from './demo-people.js';
+import { DEMO_LESSONS } from './demo-lessons.js';
+import { Lesson } from './entities/lesson.js';
+import { parseScenario } from '../shared/schemas/scenario.js';
+import type { EntityManager } from 'typeorm';
 
 /**
  * Invented demo data: the "Willow Creek Fishkeepers" club with an organizer, a mentor and a
@@ -224,8 +228,26 @@ export async function seedDemo(ds: DataSource, now = new Date()): Promise<DemoSi
       },
     ]);
 
+    await seedStarterLessons(tx, club.id, users.get('mentor')!.id);
+
     return DEMO_PEOPLE.map((p) => ({ email: p.email, password: p.password, role: describeRole(p) }));
   });
+}
+
+/** The club's starter lessons (server/demo-lessons.ts), written by the demo mentor. */
+export async function seedStarterLessons(tx: EntityManager, clubId: string, mentorId: string): Promise<void> {
+  for (const l of DEMO_LESSONS) {
+    await tx.getRepository(Lesson).insert({
+      clubId,
+      authorId: mentorId,
+      title: l.title,
+      summary: l.summary,
+      kind: l.kind,
+      scenario: parseScenario(l.scenario),
+      stagedScenario: l.stagedScenario ? parseScenario(l.stagedScenario) : null,
+      steps: l.steps,
+    });
+  }
 }
 
 async function main(): Promise<void> {

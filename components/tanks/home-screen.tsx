@@ -1,6 +1,8 @@
 import { View } from 'react-native';
 import { useMe } from '@/hooks/use-session';
 import { useTankList } from '@/hooks/use-tanks';
+import { usePreferences } from '@/hooks/use-preferences';
+import { PressableLink } from '@/components/ui/pressable-link';
 import { useTheme } from '@/hooks/use-theme';
 import { Screen } from '@/components/ui/screen';
 import { AppText, Heading } from '@/components/ui/text';
@@ -13,6 +15,7 @@ export function HomeScreen() {
   const { space } = useTheme();
   const me = useMe();
   const tanks = useTankList();
+  const units = usePreferences();
   const now = new Date();
   const list = tanks.data?.tanks;
 
@@ -29,6 +32,8 @@ export function HomeScreen() {
         ) : null}
       </View>
 
+      <NewTankLink />
+
       {tanks.isPending ? <Loading label="Loading your tanks…" testID="home-loading" /> : null}
       {tanks.isError ? (
         <LoadError
@@ -43,10 +48,37 @@ export function HomeScreen() {
       {list && list.length > 0 ? (
         <View testID="tank-list" style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.lg }}>
           {list.map((tank) => (
-            <TankCard key={tank.id} tank={tank} now={now} />
+            <TankCard key={tank.id} tank={tank} now={now} units={units} />
           ))}
         </View>
       ) : null}
     </Screen>
+  );
+}
+
+/** The way to a new tank, as a button-sized link (≥ 44 px). */
+function NewTankLink() {
+  const { colors, radii, space, layout } = useTheme();
+  return (
+    <PressableLink
+      href="/tanks/new"
+      testID="home-new-tank"
+      accessibilityRole="link"
+      accessibilityLabel="Add a new tank"
+      style={({ pressed, focused }) => ({
+        alignSelf: 'flex-start',
+        minHeight: layout.minTouchTarget,
+        justifyContent: 'center',
+        paddingHorizontal: space.xl,
+        borderRadius: radii.md,
+        borderWidth: 2,
+        borderColor: focused ? colors.focus : 'transparent',
+        backgroundColor: pressed ? colors.primaryPressed : colors.primary,
+      })}
+    >
+      <AppText weight="bold" tone="onPrimary">
+        + New tank
+      </AppText>
+    </PressableLink>
   );
 }

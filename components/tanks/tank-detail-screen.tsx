@@ -1,22 +1,31 @@
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import { View } from 'react-native';
+import { useRouter } from 'expo-router';
 import type { TankDetail } from '@/shared/schemas/tank';
-import { useTankDetail } from '@/hooks/use-tanks';
+import { useDeleteTank, useTankDetail } from '@/hooks/use-tanks';
+import { usePreferences } from '@/hooks/use-preferences';
 import { useTheme } from '@/hooks/use-theme';
 import { isApiRequestError } from '@/lib/api-client';
-import { formatCelsius, formatLitres, formatMgPerL, relativeDayLabel, shortDate } from '@/lib/format';
+import { relativeDayLabel, shortDate } from '@/lib/format';
+import { formatTemperature, formatVolume } from '@/lib/units-format';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { Banner } from '@/components/ui/banner';
+import { Button } from '@/components/ui/button';
 import { StatusPill } from '@/components/ui/status-pill';
 import { AppText, Heading } from '@/components/ui/text';
 import { TextLink } from '@/components/ui/text-link';
 import { Loading, LoadError } from '@/components/ui/load-state';
 import { NitrogenFigures } from '@/components/tanks/nitrogen-figures';
-import { ReadingsTable } from '@/components/tanks/readings-table';
-import { NITROGEN_UNIT, planStatusLabel, planSummary, setupLines, speciesDisplayName } from '@/components/tanks/tank-labels';
+import { LivestockSection } from '@/components/tanks/livestock-section';
+import { TankSetupSection } from '@/components/tanks/tank-setup-section';
+import { OVER_LIMIT_ADVICE, planStatusLabel, planSummary } from '@/components/tanks/tank-labels';
+import { judgeLatest } from '@/shared/tank-status';
+import { QuickTestForm } from '@/components/readings/quick-test-form';
+import { ReadingsLog } from '@/components/readings/readings-log';
+import { CsvImportExport } from '@/components/readings/csv-import';
 
-/** One tank, read-only: its setup, stock, recent water tests and plans. */
+/** One tank: log a test at the top (phone first), then the log, stock, setup and plans. */
 export function TankDetailScreen({ id }: { id: string }) {
   const tank = useTankDetail(id);
   return (
@@ -45,85 +54,92 @@ function Section({ title, testID, children }: { title: string; testID: string; c
 
 function TankDetailBody({ tank, now }: { tank: TankDetail; now: Date }) {
   const { space } = useTheme();
+  const units = usePreferences();
   const latest = tank.readings[0] ?? null;
   const fishCount = tank.livestock.reduce((n, l) => n + l.count, 0);
   const facts = [
-    formatLitres(tank.volumeL),
-    formatCelsius(tank.temperatureC),
+    formatVolume(tank.volumeL, units.volumeUnit),
+    formatTemperature(tank.temperatureC, units.temperatureUnit),
     `pH ${tank.ph}`,
     tank.khDkh === null ? null : `KH ${tank.khDkh} °dKH`,
   ].filter(Boolean);
-  const tap = tank.tapWater;
-  const setup = setupLines(tank.setup);
 
   return (
     <>
       <View style={{ gap: space.xs }}>
         <Heading testID="tank-name">{tank.name}</Heading>
-        <AppText tone="textMuted">{facts.join(' · ')}</AppText>
+        <AppText tone="textMuted" testID="tank-facts">
+          {facts.join(' · ')}
+        </AppText>
       </View>
 
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.lg }}>
         <View style={{ flexGrow: 1, flexBasis: 320, gap: space.lg }}>
+          <Card testID="tank-quick-test" style={{ gap: space.md }}>
+            <QuickTestForm tankId={tank.id} last={latest} />
+          </Card>
           <Section title="Latest water test" testID="tank-latest">
             {latest ? (
               <>
                 <AppText weight="bold" tone="textMuted">{`${relativeDayLabel(latest.takenAt, now)} (${shortDate(latest.takenAt)})`}</AppText>
-                <NitrogenFigures values={latest} />
+                <NitrogenFigures values={latest} testID="tank-latest-figures" />
+                {judgeLatest(latest, tank).some((j) => j.level === 'over') ? (
+                  <Banner tone="danger" title="Over a limit" message={OVER_LIMIT_ADVICE} testID="tank-latest-over" />
+                ) : null}
               </>
             ) : (
               <AppText tone="textMuted">No water test logged yet.</AppText>
             )}
           </Section>
-
-          <Section title="Plans" testID="tank-plans">
-            {tank.plans.length === 0 ? <AppText tone="textMuted">No plans for this tank yet.</AppText> : null}
-            {tank.plans.map((plan) => {
-              const status = planStatusLabel[plan.status];
-              return (
-                <View key={plan.id} testID={`plan-${plan.id}`} style={{ gap: space.xxs }}>
-                  <StatusPill tone={status.tone} label={status.label} />
-                  <AppText weight="bold">{plan.name}</AppText>
-                  <AppText tone="textMuted">
-                    {`Starts ${shortDate(plan.startDate)} · ${planSummary(plan.events)}`}
-                  </AppText>
-                </View>
-              );
-            })}
-          </Section>
         </View>
 
         <View style={{ flexGrow: 1, flexBasis: 320, gap: space.lg }}>
-          <Section title={`Livestock · ${fishCount} fish`} testID="tank-livestock">
-            {tank.livestock.length === 0 ? <AppText tone="textMuted">No fish or invertebrates recorded.</AppText> : null}
-            {tank.livestock.map((item) => (
-              <View key={item.id} testID={`livestock-${item.id}`} style={{ flexDirection: 'row', justifyContent: 'space-between', gap: space.md }}>
-                <AppText style={{ flex: 1 }}>{speciesDisplayName(item)}</AppText>
-                <AppText weight="bold">{`${item.count} ×${item.lengthCm === null ? '' : ` ${item.lengthCm} cm`}`}</AppText>
-              </View>
-            ))}
+          <Section title={`Livestock · ${fishCount} ${fishCount === 1 ? 'animal' : 'animals'}`} testID="tank-livestock">
+            <LivestockSection tankId={tank.id} livestock={tank.livestock} />
           </Section>
-
           <Section title="Setup" testID="tank-setup">
-            {setup.length === 0 ? <AppText tone="textMuted">No filter or substrate details yet.</AppText> : null}
-            {setup.map((line) => (
-              <AppText key={line}>{line}</AppText>
-            ))}
-            <AppText tone="textMuted">
-              {`Tap water: total ammonia ${formatMgPerL(tap.tanMgN)}, nitrite ${formatMgPerL(tap.no2MgN)}, nitrate ${formatMgPerL(tap.no3MgN)} ${NITROGEN_UNIT}`}
-            </AppText>
-            {tank.notes.trim() ? <AppText>{tank.notes}</AppText> : null}
+            <TankSetupSection tank={tank} />
           </Section>
         </View>
       </View>
 
-      <Section title="Recent water tests" testID="tank-readings">
-        {tank.readings.length === 0 ? (
-          <AppText tone="textMuted">No water tests logged yet.</AppText>
-        ) : (
-          <ReadingsTable readings={tank.readings} now={now} />
-        )}
+      <Section title="Test log" testID="tank-readings">
+        <ReadingsLog tankId={tank.id} tank={tank} />
+        <CsvImportExport tankId={tank.id} />
       </Section>
+
+      <Section title="Plans" testID="tank-plans">
+        {tank.plans.length === 0 ? <AppText tone="textMuted">No plans for this tank yet.</AppText> : null}
+        {tank.plans.map((plan) => {
+          const status = planStatusLabel[plan.status];
+          return (
+            <View key={plan.id} testID={`plan-${plan.id}`} style={{ gap: space.xxs }}>
+              <StatusPill tone={status.tone} label={status.label} />
+              <TextLink href={`/plans/${plan.id}`} label={plan.name} accessibilityLabel={`Open plan: ${plan.name}`} testID={`plan-open-${plan.id}`} />
+              <AppText tone="textMuted">{`Starts ${shortDate(plan.startDate)} · ${planSummary(plan.events)}`}</AppText>
+            </View>
+          );
+        })}
+        <TextLink href={`/plans?tankId=${tank.id}`} label="Plan a change for this tank" testID="tank-new-plan" />
+      </Section>
+
+      <DeleteTank tank={tank} />
     </>
+  );
+}
+
+function DeleteTank({ tank }: { tank: TankDetail }) {
+  const { space } = useTheme();
+  const router = useRouter();
+  const remove = useDeleteTank(tank.id);
+  const [asking, setAsking] = useState(false);
+  if (!asking) return <Button variant="quiet" label="Delete this tank…" onPress={() => setAsking(true)} testID="tank-delete" />;
+  return (
+    <Banner tone="watch" title={`Delete ${tank.name}?`} message="Its fish list, every water test and every plan go with it. This cannot be undone." testID="tank-delete-confirm">
+      <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
+        <Button label="Delete for good" busy={remove.isPending} busyLabel="Deleting…" onPress={() => remove.mutate(undefined, { onSuccess: () => router.replace('/') })} testID="tank-delete-yes" />
+        <Button variant="secondary" label="Keep it" onPress={() => setAsking(false)} testID="tank-delete-no" />
+      </View>
+    </Banner>
   );
 }

@@ -1,4 +1,4 @@
-import type { LivestockItem, PlanEvent, PlanStatus, TankSetup } from '@/shared/schemas/tank';
+import { TANK_DEFAULTS, type LimitLevel, type LivestockItem, type NextTest, type PlanEvent, type PlanStatus, type TankSetup } from '@/shared/schemas/tank';
 import type { AerationLevel, MediaType } from '@/shared/schemas/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 import type { StatusTone } from '@/constants/theme';
@@ -81,6 +81,12 @@ export function setupLines(setup: TankSetup): string[] {
   if (setup.hardscape && setup.hardscape !== 'none') lines.push(`Rock and wood: ${setup.hardscape}`);
   if (setup.aeration) lines.push(`Aeration: ${aerationNames[setup.aeration]}`);
   if (setup.lightHoursPerDay !== undefined) lines.push(`Light: ${setup.lightHoursPerDay} h a day`);
+  const wc = setup.routineWaterChange ?? TANK_DEFAULTS.routineWaterChange;
+  lines.push(
+    wc.percent > 0
+      ? `Water change: ${wc.percent} % every ${wc.everyDays === 1 ? 'day' : `${wc.everyDays} days`}${setup.routineWaterChange ? '' : ' (assumed)'}`
+      : 'No routine water changes',
+  );
   if (setup.zones?.length) lines.push(`${setup.zones.length} surface ${setup.zones.length === 1 ? 'zone' : 'zones'} set by hand`);
   return lines;
 }
@@ -99,3 +105,32 @@ export function planSummary(events: readonly PlanEvent[]): string {
   if (removed) parts.push(`removes ${removed} fish`);
   return parts.join(' · ');
 }
+
+/** The home card's headline for the latest test, in words (the tint only repeats them). */
+export const overallStatusLabel: Record<LimitLevel | 'none', { label: string; tone: StatusTone }> = {
+  none: { label: 'No test yet', tone: 'info' },
+  ok: { label: 'Water OK', tone: 'ok' },
+  watch: { label: 'Watch', tone: 'watch' },
+  over: { label: 'Over a limit', tone: 'danger' },
+};
+
+const NEXT_TEST_REASON: Record<NextTest['reason'], string> = {
+  'no-test-yet': 'no test logged yet',
+  'plan-check-day': "a check day of the running plan",
+  'over-limit': 'the last test was over a limit',
+  routine: 'a week after the last test',
+};
+
+/** "Next test: today (no test logged yet)", "Next test: overdue since 30 Nov (…)", "Next test: 3 Dec (…)". */
+export function nextTestLabel(next: NextTest, now: Date, locale?: string): { text: string; overdue: boolean } {
+  const todayUtc = now.toISOString().slice(0, 10);
+  const when = new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', timeZone: 'UTC' }).format(new Date(`${next.date}T00:00:00Z`));
+  const reason = next.detail ? `plan check day: ${next.detail}` : NEXT_TEST_REASON[next.reason];
+  if (next.date === todayUtc) return { text: `Next test: today (${reason})`, overdue: false };
+  if (next.date < todayUtc) return { text: `Next test: overdue since ${when} (${reason})`, overdue: true };
+  return { text: `Next test: ${when} (${reason})`, overdue: false };
+}
+
+/** What to do when a test is over a limit (product brief point 10): water tests decide, act on them. */
+export const OVER_LIMIT_ADVICE =
+  'Ammonia or nitrite above its limit harms fish. Change part of the water now (same temperature, dechlorinated), feed less, and test again tomorrow. For questions about the fish’s health, ask a qualified aquatic veterinarian.';

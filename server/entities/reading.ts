@@ -42,6 +42,9 @@ export class Reading {
   @Column({ type: 'varchar', length: 8, default: 'N' })
   basis: ReadingBasis;
 
+  @Column({ type: 'varchar', length: 200, default: '' })
+  note: string;
+
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;
 

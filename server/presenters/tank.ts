@@ -1,4 +1,5 @@
-import type { LivestockItem, PlanItem, ReadingItem, TankDetail, TankSummary } from '../../shared/schemas/tank.js';
+import type { LivestockItem, PlanItem, ReadingItem, TankDetail, TankSummary, TankSummaryWithStatus } from '../../shared/schemas/tank.js';
+import { tankStatus } from '../../shared/tank-status.js';
 import type { Livestock } from '../entities/livestock.js';
 import type { Plan } from '../entities/plan.js';
 import type { Reading } from '../entities/reading.js';
@@ -19,6 +20,12 @@ export function presentTankSummary(row: TankSummaryRow): TankSummary {
   };
 }
 
+/** The summary plus the home status: the latest test judged against limits, and the next test day. */
+export function presentTankSummaryWithStatus(row: TankSummaryRow, now: Date): TankSummaryWithStatus {
+  const { tank, latestReading: r, activePlan: p } = row;
+  return { ...presentTankSummary(row), status: tankStatus(tank, r, p ? { startDate: p.startDate, events: p.events } : null, now) };
+}
+
 export function presentLivestock(l: Livestock): LivestockItem {
   return { id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm };
 }
@@ -34,6 +41,7 @@ export function presentReading(r: Reading): ReadingItem {
     temperatureC: r.temperatureC,
     khDkh: r.khDkh,
     basis: r.basis,
+    note: r.note ?? '',
   };
 }
 

@@ -1,21 +1,111 @@
 import { Router } from 'express';
-import { z } from 'zod';
+import { createClubSchema, createInviteSchema, createShareSchema, memberRoleSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
-import { notFound } from '../errors.js';
+import { conflict, notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
-import { presentClub } from '../presenters/club.js';
-import { listClubMembers, requireClubRole } from '../services/clubs.js';
+import { validateBody, validBody } from '../middleware/validate.js';
+import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
+import { listComments, listShares, loadSharedItem, shareItem, unshare, visibleShare } from '../services/club-shares.js';
+import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRole, setMemberRole } from '../services/clubs.js';
+import { createInvite } from '../services/invites.js';
+import { scenarioFromPlanOrNull } from '../services/scenario-from-plan.js';
+import { getOwnTank } from '../services/tanks.js';
+import { idParam } from './club-params.js';
 
-const clubId = z.string().uuid();
+const ANY_ROLE = ['organizer', 'mentor', 'member'] as const;
 
-export function clubsRouter({ dataSource: ds, config }: AppDeps): Router {
+/**
+ * /api/clubs: clubs, members and roles, invites, items shared with the club. Every route loads
+ * the caller's membership first: outside the club → 404, wrong role → 403.
+ */
+export function clubsRouter({ dataSource: ds, config, mailer, logger, background }: AppDeps): Router {
   const router = Router();
+  const auth = requireAuth(ds, config);
+  const member = (req: Parameters<typeof currentUser>[0], roles: readonly ('organizer' | 'mentor' | 'member')[] = ANY_ROLE) =>
+    requireClubRole(ds, currentUser(req).id, idParam(req, 'clubId', 'club'), roles);
 
-  router.get('/:clubId', requireAuth(ds, config), async (req, res) => {
-    const id = clubId.safeParse(req.params.clubId);
-    if (!id.success) throw notFound('No such club.');
-    const membership = await requireClubRole(ds, currentUser(req).id, id.data, ['organizer', 'mentor', 'member']);
-    res.json(presentClub(membership, await listClubMembers(ds, id.data)));
+  router.get('/', auth, async (req, res) => {
+    res.json({ clubs: await listMyClubs(ds, currentUser(req).id) });
+  });
+
+  router.post('/', auth, validateBody(createClubSchema), async (req, res) => {
+    const membership = await createClub(ds, currentUser(req).id, validBody(req, createClubSchema).name);
+    logger.log('info', 'clubs.created', { clubId: membership.clubId, userId: membership.userId });
+    res.status(201).json(presentClub(membership, await listClubMembers(ds, membership.clubId)));
+  });
+
+  router.get('/:clubId', auth, async (req, res) => {
+    const membership = await member(req);
+    res.json(presentClub(membership, await listClubMembers(ds, membership.clubId)));
+  });
+
+  router.post('/:clubId/invites', auth, validateBody(createInviteSchema), async (req, res) => {
+    const membership = await member(req, ['organizer']);
+    const { invite, send } = await createInvite(ds, mailer, config.appUrl, {
+      clubId: membership.clubId,
+      clubName: membership.club?.name ?? '',
+      inviter: currentUser(req),
+      email: validBody(req, createInviteSchema).email,
+    });
+    background.run('club-invite-mail', send);
+    res.status(201).json({ id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() });
+  });
+
+  router.put('/:clubId/members/:userId', auth, validateBody(memberRoleSchema), async (req, res) => {
+    const membership = await member(req, ['organizer']);
+    await setMemberRole(ds, membership.clubId, idParam(req, 'userId', 'member'), validBody(req, memberRoleSchema).role);
+    res.json(presentClub(membership, await listClubMembers(ds, membership.clubId)));
+  });
+
+  router.delete('/:clubId/members/:userId', auth, async (req, res) => {
+    const membership = await member(req, ['organizer']);
+    const target = idParam(req, 'userId', 'member');
+    if (target === membership.userId) throw conflict('To leave the club yourself, use Leave club.');
+    await endMembership(ds, membership.clubId, target);
+    res.status(204).end();
+  });
+
+  router.post('/:clubId/leave', auth, async (req, res) => {
+    const membership = await member(req);
+    await endMembership(ds, membership.clubId, membership.userId);
+    res.status(204).end();
+  });
+
+  router.get('/:clubId/shares', auth, async (req, res) => {
+    res.json({ shares: await listShares(ds, await member(req)) });
+  });
+
+  router.post('/:clubId/shares', auth, validateBody(createShareSchema), async (req, res) => {
+    const membership = await member(req);
+    const { itemType, itemId } = validBody(req, createShareSchema);
+    const share = await shareItem(ds, membership.clubId, membership.userId, itemType, itemId);
+    const listed = (await listShares(ds, membership)).find((s) => s.id === share.id);
+    if (!listed) throw notFound('No such shared item.');
+    res.status(201).json(listed);
+  });
+
+  router.get('/:clubId/shares/:shareId', auth, async (req, res) => {
+    const membership = await member(req);
+    const share = await visibleShare(ds, membership, idParam(req, 'shareId', 'shared item'));
+    const { tankId, plan } = await loadSharedItem(ds, share);
+    const rows = await getOwnTank(ds, share.ownerId, tankId);
+    if (!rows) throw notFound('No such shared item.');
+    const listed = (await listShares(ds, membership)).find((s) => s.id === share.id);
+    if (!listed) throw notFound('No such shared item.');
+    res.json(
+      presentSharedItem({
+        share: presentShare(listed),
+        rows,
+        plan,
+        scenario: plan ? scenarioFromPlanOrNull(rows.tank, rows.livestock, plan) : null,
+        comments: await listComments(ds, share),
+      }),
+    );
+  });
+
+  router.delete('/:clubId/shares/:shareId', auth, async (req, res) => {
+    await unshare(ds, await member(req), idParam(req, 'shareId', 'shared item'));
+    res.status(204).end();
   });
 
   return router;

@@ -1,6 +1,8 @@
 import type { DataSource } from 'typeorm';
 import type { ClubRole } from '../../shared/schemas/auth.js';
-import { forbidden, notFound } from '../errors.js';
+import { conflict, forbidden, notFound } from '../errors.js';
+import { Club } from '../entities/club.js';
+import { ClubShare } from '../entities/club-share.js';
 import { ClubMembership } from '../entities/club-membership.js';
 
 /**
@@ -24,4 +26,53 @@ export async function listClubMembers(ds: DataSource, clubId: string): Promise<C
   const members = await ds.getRepository(ClubMembership).find({ where: { clubId }, relations: { user: true } });
   const rank: Record<ClubRole, number> = { organizer: 0, mentor: 1, member: 2 };
   return members.sort((a, b) => rank[a.role] - rank[b.role] || (a.user?.displayName ?? '').localeCompare(b.user?.displayName ?? ''));
+}
+
+// ---- Club administration (issue 6) -----------------------------------------------------------
+
+const LAST_ORGANIZER_MESSAGE = 'A club needs an organizer: make someone else organizer first, or stay.';
+
+/** Creates a club with the caller as its organizer. */
+export async function createClub(ds: DataSource, userId: string, name: string): Promise<ClubMembership> {
+  return ds.transaction(async (tx) => {
+    const club = await tx.getRepository(Club).save(tx.getRepository(Club).create({ name }));
+    await tx.getRepository(ClubMembership).insert({ clubId: club.id, userId, role: 'organizer' });
+    return tx.getRepository(ClubMembership).findOneOrFail({ where: { clubId: club.id, userId }, relations: { club: true } });
+  });
+}
+
+/** The caller's clubs with member counts, by name. */
+export async function listMyClubs(ds: DataSource, userId: string): Promise<{ id: string; name: string; myRole: ClubRole; memberCount: number }[]> {
+  const rows: { id: string; name: string; role: ClubRole; count: string }[] = await ds.query(
+    `SELECT c.id, c.name, m.role, (SELECT count(*) FROM club_memberships x WHERE x.club_id = c.id) AS count
+       FROM club_memberships m JOIN clubs c ON c.id = m.club_id
+      WHERE m.user_id = $1 ORDER BY c.name`,
+    [userId],
+  );
+  return rows.map((r) => ({ id: r.id, name: r.name, myRole: r.role, memberCount: Number(r.count) }));
+}
+
+/** Organizer grants or removes the mentor role. Organizers' own roles are not changed here. */
+export async function setMemberRole(ds: DataSource, clubId: string, targetUserId: string, role: 'mentor' | 'member'): Promise<void> {
+  const repo = ds.getRepository(ClubMembership);
+  const target = await repo.findOneBy({ clubId, userId: targetUserId });
+  if (!target) throw notFound('No such member.');
+  if (target.role === 'organizer') throw conflict('An organizer keeps the organizer role.');
+  await repo.update({ id: target.id }, { role });
+}
+
+/**
+ * Ends a membership (removed by an organizer, or leaving). The last organizer cannot go. The
+ * member's items shared with the club stop being shared.
+ */
+export async function endMembership(ds: DataSource, clubId: string, userId: string): Promise<void> {
+  await ds.transaction(async (tx) => {
+    // Lock the club's memberships so two organizers cannot both leave at once.
+    const all = await tx.getRepository(ClubMembership).createQueryBuilder('m').setLock('pessimistic_write').where('m.club_id = :clubId', { clubId }).getMany();
+    const target = all.find((m) => m.userId === userId);
+    if (!target) throw notFound('No such member.');
+    if (target.role === 'organizer' && all.filter((m) => m.role === 'organizer').length === 1) throw conflict(LAST_ORGANIZER_MESSAGE);
+    await tx.getRepository(ClubShare).delete({ clubId, ownerId: userId });
+    await tx.getRepository(ClubMembership).delete({ id: target.id });
+  });
 }

@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import { TANK_DETAIL_READING_LIMIT } from '../../shared/schemas/tank.js';
+import { TANK_DEFAULTS, TANK_DETAIL_READING_LIMIT, defaultSetup, type TankCreateInput, type TankPatchInput } from '../../shared/schemas/tank.js';
 import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
@@ -72,4 +72,55 @@ export async function getOwnTank(ds: DataSource, ownerId: string, tankId: string
     ds.getRepository(Plan).find({ where: { tankId }, order: { startDate: 'DESC', createdAt: 'DESC' } }),
   ]);
   return { tank, livestock, readings, plans };
+}
+
+/** Creates a tank for `ownerId`; anything not given takes the newcomer defaults (TANK_DEFAULTS). */
+export async function createOwnTank(ds: DataSource, ownerId: string, input: TankCreateInput): Promise<Tank> {
+  const repo = ds.getRepository(Tank);
+  return repo.save(
+    repo.create({
+      ownerId,
+      name: input.name,
+      volumeL: input.volumeL,
+      temperatureC: input.temperatureC ?? TANK_DEFAULTS.temperatureC,
+      ph: input.ph ?? TANK_DEFAULTS.ph,
+      khDkh: input.khDkh ?? null,
+      tapTanMgN: input.tapWater?.tanMgN ?? 0,
+      tapNo2MgN: input.tapWater?.no2MgN ?? 0,
+      tapNo3MgN: input.tapWater?.no3MgN ?? 0,
+      setup: input.setup ?? defaultSetup(input.volumeL, input.filterKind),
+      notes: input.notes ?? '',
+    }),
+  );
+}
+
+/** Applies a patch to the owner's tank; null when the tank is not theirs. One UPDATE, so nothing is half-saved. */
+export async function updateOwnTank(ds: DataSource, ownerId: string, tankId: string, patch: TankPatchInput): Promise<Tank | null> {
+  const repo = ds.getRepository(Tank);
+  const tank = await repo.findOneBy({ id: tankId, ownerId });
+  if (!tank) return null;
+  if (patch.name !== undefined) tank.name = patch.name;
+  if (patch.volumeL !== undefined) tank.volumeL = patch.volumeL;
+  if (patch.temperatureC !== undefined) tank.temperatureC = patch.temperatureC;
+  if (patch.ph !== undefined) tank.ph = patch.ph;
+  if (patch.khDkh !== undefined) tank.khDkh = patch.khDkh;
+  if (patch.tapWater !== undefined) {
+    tank.tapTanMgN = patch.tapWater.tanMgN;
+    tank.tapNo2MgN = patch.tapWater.no2MgN;
+    tank.tapNo3MgN = patch.tapWater.no3MgN;
+  }
+  if (patch.setup !== undefined) tank.setup = patch.setup;
+  if (patch.notes !== undefined) tank.notes = patch.notes;
+  return repo.save(tank);
+}
+
+/** Deletes the owner's tank (livestock, readings and plans go with it: ON DELETE CASCADE). */
+export async function deleteOwnTank(ds: DataSource, ownerId: string, tankId: string): Promise<boolean> {
+  const result = await ds.getRepository(Tank).delete({ id: tankId, ownerId });
+  return (result.affected ?? 0) > 0;
+}
+
+/** The tank itself when `ownerId` owns it (for routes nested under a tank). */
+export async function findOwnTank(ds: DataSource, ownerId: string, tankId: string): Promise<Tank | null> {
+  return ds.getRepository(Tank).findOneBy({ id: tankId, ownerId });
 }

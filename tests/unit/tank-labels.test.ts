@@ -22,8 +22,13 @@ describe('speciesDisplayName', () => {
 });
 
 describe('setupLines', () => {
-  it('answers nothing for an empty setup', () => {
-    expect(setupLines({})).toEqual([]);
+  it('answers only the assumed weekly water change for an empty setup', () => {
+    expect(setupLines({})).toEqual(['Water change: 25 % every 7 days (assumed)']);
+  });
+
+  it('gives the keeper\'s own water change, or says there is none', () => {
+    expect(setupLines({ routineWaterChange: { percent: 40, everyDays: 1 } })).toEqual(['Water change: 40 % every day']);
+    expect(setupLines({ routineWaterChange: { percent: 0, everyDays: 7 } })).toEqual(['No routine water changes']);
   });
 
   it('describes filter and media, substrate depth, plants, hardscape, aeration and light', () => {
@@ -43,15 +48,16 @@ describe('setupLines', () => {
       'Rock and wood: lots',
       'Aeration: air stone',
       'Light: 8 h a day',
+      'Water change: 25 % every 7 days (assumed)',
     ]);
   });
 
   it('names a bare bottom and skips "none" plants and hardscape', () => {
-    expect(setupLines({ substrate: 'bare', plants: 'none', hardscape: 'none' })).toEqual(['Bare bottom']);
+    expect(setupLines({ substrate: 'bare', plants: 'none', hardscape: 'none' })).toEqual(['Bare bottom', 'Water change: 25 % every 7 days (assumed)']);
   });
 
   it('still gives the media volume when the media type is not known', () => {
-    expect(setupLines({ filter: { kind: 'sponge', mediaVolumeL: 0.5 } })).toEqual(['Sponge filter, 0.5 L of media']);
+    expect(setupLines({ filter: { kind: 'sponge', mediaVolumeL: 0.5 } })).toEqual(['Sponge filter, 0.5 L of media', 'Water change: 25 % every 7 days (assumed)']);
   });
 });
 

@@ -1,0 +1,5 @@
+import { ClubsScreen } from '@/components/clubs/clubs-screen';
+
+export default function ClubsRoute() {
+  return <ClubsScreen />;
+}

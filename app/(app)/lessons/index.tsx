@@ -1,0 +1,5 @@
+import { LessonsListScreen } from '@/components/lessons/lessons-list-screen';
+
+export default function LessonsRoute() {
+  return <LessonsListScreen />;
+}

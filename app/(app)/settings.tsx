@@ -1,0 +1,5 @@
+import { SettingsScreen } from '@/components/settings/settings-screen';
+
+export default function SettingsRoute() {
+  return <SettingsScreen />;
+}

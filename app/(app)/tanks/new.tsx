@@ -1,0 +1,5 @@
+import { NewTankScreen } from '@/components/tanks/new-tank-screen';
+
+export default function NewTankRoute() {
+  return <NewTankScreen />;
+}

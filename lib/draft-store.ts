@@ -1,0 +1,87 @@
+/**
+ * Plan drafts and the plan editor's UI state (zustand; client state only — saved plans live
+ * in TanStack Query). A draft is the keeper's unsaved copy of a plan's events: nothing typed
+ * is lost when the chart or the advice panel re-renders.
+ */
+import { create } from 'zustand';
+import type { ScenarioEvent } from '@/shared/schemas/scenario';
+
+export type AdviceTab = 'addition' | 'removal' | 'rescue' | 'calibration' | 'capacity-test';
+
+export interface PlanDraft {
+  name: string;
+  events: ScenarioEvent[];
+  /** The saved plan's `updatedAt` the draft started from. */
+  baseUpdatedAt: string;
+  dirty: boolean;
+}
+
+interface DraftState {
+  drafts: Record<string, PlanDraft>;
+  /** Index of the event the editor has open, per plan. */
+  selected: Record<string, number | null>;
+  adviceTab: AdviceTab;
+  /** Start a draft from the saved plan unless one already exists for the same saved version. */
+  ensureDraft(planId: string, saved: { name: string; events: ScenarioEvent[]; updatedAt: string }): void;
+  setEvents(planId: string, events: ScenarioEvent[]): void;
+  updateEvent(planId: string, index: number, event: ScenarioEvent): void;
+  addEvent(planId: string, event: ScenarioEvent): void;
+  removeEvent(planId: string, index: number): void;
+  setName(planId: string, name: string): void;
+  select(planId: string, index: number | null): void;
+  setAdviceTab(tab: AdviceTab): void;
+  /** After a save: the draft now equals the saved plan. */
+  markSaved(planId: string, updatedAt: string): void;
+  discard(planId: string): void;
+}
+
+const byDay = (a: ScenarioEvent, b: ScenarioEvent) => a.day - b.day;
+
+/** Events sorted by day (stable, so same-day events keep the keeper's order). */
+export function sortEvents(events: readonly ScenarioEvent[]): ScenarioEvent[] {
+  return [...events].sort(byDay);
+}
+
+/**
+ * The plan's events with every add-fish event replaced by a schedule's (advice "apply this
+ * schedule"); other events stay.
+ */
+export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] {
+  return sortEvents([...events.filter((e) => e.type !== 'add-fish'), ...schedule.filter((e) => e.type === 'add-fish')]);
+}
+
+export const useDraftStore = create<DraftState>((set) => {
+  const edit = (planId: string, f: (d: PlanDraft) => Partial<PlanDraft>) =>
+    set((s) => {
+      const d = s.drafts[planId];
+      return d ? { drafts: { ...s.drafts, [planId]: { ...d, ...f(d), dirty: true } } } : s;
+    });
+  return {
+    drafts: {},
+    selected: {},
+    adviceTab: 'addition',
+    ensureDraft: (planId, saved) =>
+      set((s) => {
+        const d = s.drafts[planId];
+        if (d && (d.dirty || d.baseUpdatedAt === saved.updatedAt)) return s;
+        return { drafts: { ...s.drafts, [planId]: { name: saved.name, events: saved.events, baseUpdatedAt: saved.updatedAt, dirty: false } } };
+      }),
+    setEvents: (planId, events) => edit(planId, () => ({ events })),
+    updateEvent: (planId, index, event) => edit(planId, (d) => ({ events: d.events.map((e, i) => (i === index ? event : e)) })),
+    addEvent: (planId, event) => edit(planId, (d) => ({ events: [...d.events, event] })),
+    removeEvent: (planId, index) => edit(planId, (d) => ({ events: d.events.filter((_, i) => i !== index) })),
+    setName: (planId, name) => edit(planId, () => ({ name })),
+    select: (planId, index) => set((s) => ({ selected: { ...s.selected, [planId]: index } })),
+    setAdviceTab: (adviceTab) => set({ adviceTab }),
+    markSaved: (planId, updatedAt) =>
+      set((s) => {
+        const d = s.drafts[planId];
+        return d ? { drafts: { ...s.drafts, [planId]: { ...d, baseUpdatedAt: updatedAt, dirty: false } } } : s;
+      }),
+    discard: (planId) =>
+      set((s) => {
+        const { [planId]: _gone, ...rest } = s.drafts;
+        return { drafts: rest };
+      }),
+  };
+});

@@ -1,0 +1,76 @@
+/**
+ * The forecast chart's panels (pure): which series, bands and limit lines each panel shows, in
+ * the person's nitrogen basis ("as N" or "as the ion"; free ammonia is always mg NH3/L).
+ */
+import type { ForecastView } from '@/shared/schemas/plan';
+import type { NitrogenBasis } from '@/shared/schemas/preferences';
+import { nitrogenIn, nitrogenUnit } from '@/lib/units-format';
+import { plainNumber } from '@/shared/forecast-view';
+import type { PanelLimit, PanelSeries } from '@/lib/chart-geometry';
+
+export type PanelKey = 'ammonia-nitrite' | 'free-ammonia' | 'nitrate' | 'capacity';
+
+export interface ForecastPanel {
+  key: PanelKey;
+  title: string;
+  unit: string;
+  series: (PanelSeries & { label: string })[];
+  limits: PanelLimit[];
+  minYMax: number;
+}
+
+type Spread = { p10: number[]; p90: number[] } | undefined;
+const band = (b: Spread, f: (x: number) => number) => (b ? { lo: b.p10.map(f), hi: b.p90.map(f) } : undefined);
+
+/** Panels for a forecast; the band is drawn only when `showBand` (it belongs to the saved plan). */
+export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand = true): ForecastPanel[] {
+  const tan = (x: number) => nitrogenIn(x, 'tanMgN', basis);
+  const no2 = (x: number) => nitrogenIn(x, 'no2MgN', basis);
+  const no3 = (x: number) => nitrogenIn(x, 'no3MgN', basis);
+  const b = showBand ? v.band : null;
+  const sameUnit = basis === 'N';
+  return [
+    {
+      key: 'ammonia-nitrite',
+      title: 'Total ammonia and nitrite',
+      unit: sameUnit ? 'mg/L as N' : 'mg/L (NH4+, NO2−)',
+      series: [
+        { key: 'tan', label: 'Total ammonia', values: v.tanMgN.map(tan), band: band(b?.tanMgN, tan) },
+        { key: 'no2', label: 'Nitrite', values: v.no2MgN.map(no2), band: band(b?.no2MgN, no2) },
+      ],
+      limits: [
+        { key: 'tanChronic', value: tan(v.limits.tanChronicMgN), label: `ammonia limit ${plainNumber(tan(v.limits.tanChronicMgN))}` },
+        { key: 'no2', value: no2(v.limits.no2MgN), label: `nitrite limit ${plainNumber(no2(v.limits.no2MgN))}` },
+      ],
+      minYMax: 0.2,
+    },
+    {
+      key: 'free-ammonia',
+      title: 'Free ammonia (NH3)',
+      unit: 'mg NH3/L',
+      series: [{ key: 'freeNh3', label: 'Free ammonia', values: v.freeNh3MgL, band: band(b?.freeNh3MgL, (x) => x) }],
+      limits: [{ key: 'freeNh3', value: v.limits.freeNh3MgNH3, label: `limit ${plainNumber(v.limits.freeNh3MgNH3)}` }],
+      minYMax: 0.005,
+    },
+    {
+      key: 'nitrate',
+      title: 'Nitrate',
+      unit: nitrogenUnit('no3MgN', basis),
+      series: [{ key: 'no3', label: 'Nitrate', values: v.no3MgN.map(no3), band: band(b?.no3MgN, no3) }],
+      limits: [],
+      minYMax: 5,
+    },
+    {
+      key: 'capacity',
+      title: 'Biofilter capacity and load',
+      unit: 'mg N/day',
+      series: [
+        { key: 'ao', label: 'Ammonia-eating capacity', values: v.aoMgNPerDay },
+        { key: 'no', label: 'Nitrite-eating capacity', values: v.noMgNPerDay },
+        { key: 'load', label: 'Ammonia from fish', values: v.loadMgNPerDay },
+      ],
+      limits: [],
+      minYMax: 1,
+    },
+  ];
+}

@@ -1,0 +1,45 @@
+import { Router } from 'express';
+import { createLessonSchema } from '../../shared/schemas/lesson.js';
+import type { AppDeps } from '../deps.js';
+import { forbidden } from '../errors.js';
+import { currentUser, requireAuth } from '../middleware/require-auth.js';
+import { validateBody, validBody } from '../middleware/validate.js';
+import { requireClubRole } from '../services/clubs.js';
+import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail } from '../services/lessons.js';
+import { Lesson } from '../entities/lesson.js';
+import { idParam } from './club-params.js';
+
+/** /api/lessons: the lessons of the caller's clubs; read, delete. */
+export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
+  const router = Router();
+  const auth = requireAuth(ds, config);
+
+  router.get('/', auth, async (req, res) => {
+    res.json({ lessons: await listLessons(ds, currentUser(req).id) });
+  });
+
+  router.get('/:lessonId', auth, async (req, res) => {
+    const { lesson, membership } = await loadLesson(ds, currentUser(req).id, idParam(req, 'lessonId', 'lesson'));
+    res.json(presentLessonDetail(lesson, membership, await authorName(ds, lesson)));
+  });
+
+  router.delete('/:lessonId', auth, async (req, res) => {
+    const { lesson, membership } = await loadLesson(ds, currentUser(req).id, idParam(req, 'lessonId', 'lesson'));
+    if (!canManageLesson(lesson, membership)) throw forbidden('Only the lesson’s author or an organizer can delete it.');
+    await ds.getRepository(Lesson).delete({ id: lesson.id });
+    res.status(204).end();
+  });
+
+  return router;
+}
+
+/** /api/clubs/:clubId/lessons — mentors and organizers create a lesson in their club. */
+export function clubLessonsRouter({ dataSource: ds, config }: AppDeps): Router {
+  const router = Router({ mergeParams: true });
+  router.post('/', requireAuth(ds, config), validateBody(createLessonSchema), async (req, res) => {
+    const membership = await requireClubRole(ds, currentUser(req).id, idParam(req, 'clubId', 'club'), LESSON_AUTHOR_ROLES);
+    const lesson = await createLesson(ds, membership, validBody(req, createLessonSchema));
+    res.status(201).json(presentLessonDetail(lesson, membership, currentUser(req).displayName));
+  });
+  return router;
+}

@@ -1,0 +1,147 @@
+import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
+import multer from 'multer';
+import { z } from 'zod';
+import {
+  CSV_IMPORT_MAX_BYTES,
+  CSV_IMPORT_MAX_ROWS,
+  readingCreateSchema,
+  readingsQuerySchema,
+  type CsvRowError,
+  type ImportPreview,
+} from '../../shared/schemas/reading.js';
+import type { AppDeps } from '../deps.js';
+import { onReadingLogged } from '../jobs/alerts.js';
+import { AppError, notFound, payloadTooLarge, validationFailed } from '../errors.js';
+import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
+import { presentReading } from '../presenters/tank.js';
+import { parseReadingsCsv, readingsToCsv } from '../services/readings-csv.js';
+import { addReading, allReadings, deleteReading, duplicateErrors, importReadings, listReadings } from '../services/readings.js';
+
+const uuid = z.string().uuid();
+
+/** Types a browser or OS may give a .csv file. */
+const CSV_MIME_TYPES = new Set([
+  'text/csv',
+  'text/plain',
+  'application/csv',
+  'text/comma-separated-values',
+  'application/vnd.ms-excel',
+  'application/octet-stream',
+]);
+
+const notCsv = () => new AppError(415, 'unsupported_media_type', 'Upload a CSV file: plain text, values separated by commas.');
+
+/** One file, in memory, at most CSV_IMPORT_MAX_BYTES; the name the client gives is never used. */
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: CSV_IMPORT_MAX_BYTES, files: 1, fields: 4, parts: 5, fieldSize: 1024 },
+}).single('file');
+
+/** Multer's refusals in the API's error vocabulary. */
+const uploadErrors: ErrorRequestHandler = (err, _req, _res, next) => {
+  if (err instanceof multer.MulterError) {
+    if (err.code === 'LIMIT_FILE_SIZE') return next(payloadTooLarge());
+    return next(validationFailed({ file: 'Send one CSV file in the "file" field.' }));
+  }
+  next(err);
+};
+
+/** The uploaded CSV as text; 400 without a file, 415 when it is not a text CSV. */
+function csvText(req: { file?: Express.Multer.File; is(type: string): string | false | null }): string {
+  if (!req.is('multipart/form-data')) throw new AppError(415, 'unsupported_media_type', 'Upload the CSV file as multipart/form-data.');
+  const file = req.file;
+  if (!file) throw validationFailed({ file: 'Choose a CSV file.' });
+  if (!CSV_MIME_TYPES.has(file.mimetype.toLowerCase()) || !/\.(csv|txt)$/i.test(file.originalname)) throw notCsv();
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true }).decode(file.buffer);
+  } catch {
+    throw notCsv();
+  }
+  // A picture or a zip renamed to .csv usually still decodes partly; NUL bytes give it away.
+  if (text.includes('\u0000')) throw notCsv();
+  return text;
+}
+
+function tooManyRows(count: number) {
+  return new AppError(422, 'too_many_rows', `A file can hold at most ${CSV_IMPORT_MAX_ROWS} tests; this one has ${count}.`, {
+    file: `At most ${CSV_IMPORT_MAX_ROWS} rows.`,
+  });
+}
+
+/** Row errors as an ApiError `fields` map: `rows.<line>.<column>` → message. */
+function rowFields(errors: readonly CsvRowError[]): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const e of errors) {
+    const key = `rows.${e.line}.${e.column ?? 'row'}`;
+    if (!(key in out)) out[key] = e.message;
+  }
+  return out;
+}
+
+/** Parses the upload and checks it against the tank's stored tests, without writing. */
+async function preview(ds: AppDeps['dataSource'], tankId: string, text: string): Promise<ImportPreview> {
+  const parsed = parseReadingsCsv(text, CSV_IMPORT_MAX_ROWS);
+  if (parsed.dataRowCount > CSV_IMPORT_MAX_ROWS) throw tooManyRows(parsed.dataRowCount);
+  const dupes = await duplicateErrors(ds, tankId, parsed.rows);
+  const errors = [...parsed.errors, ...dupes].sort((a, b) => a.line - b.line);
+  if (parsed.dataRowCount === 0 && errors.length === 0) errors.push({ line: 1, column: null, message: 'The file has no tests in it.' });
+  return { rows: parsed.rows, errors, canImport: errors.length === 0 };
+}
+
+/** /api/tanks/:id/readings — mounted after auth and the tank-ownership check. */
+export function readingsRouter(deps: AppDeps): Router {
+  const ds = deps.dataSource;
+  const router = Router({ mergeParams: true });
+  const tankId = (req: { params: Record<string, unknown> }) => String(req.params.id);
+
+  router.get('/', validateQuery(readingsQuerySchema), async (req, res) => {
+    const { page, pageSize } = validQuery(req, readingsQuerySchema);
+    const { readings, total } = await listReadings(ds, tankId(req), page, pageSize);
+    res.json({ readings: readings.map(presentReading), page, pageSize, total });
+  });
+
+  router.post('/', validateBody(readingCreateSchema), async (req, res) => {
+    const reading = await addReading(ds, tankId(req), validBody(req, readingCreateSchema));
+    await onReadingLogged(deps, reading); // alert check on the job queue (server/jobs/alerts.ts); never throws
+    res.status(201).json(presentReading(reading));
+  });
+
+  router.get('/export.csv', async (req, res) => {
+    const csv = readingsToCsv((await allReadings(ds, tankId(req))).map(presentReading));
+    const day = new Date().toISOString().slice(0, 10);
+    res
+      .status(200)
+      .type('text/csv; charset=utf-8')
+      .set('Content-Disposition', `attachment; filename="shoalshift-water-tests-${day}.csv"`)
+      .set('X-Content-Type-Options', 'nosniff')
+      .send(csv);
+  });
+
+  const withUpload: RequestHandler[] = [upload as RequestHandler];
+
+  router.post('/import/preview', ...withUpload, async (req, res) => {
+    res.json(await preview(ds, tankId(req), csvText(req)));
+  });
+
+  router.post('/import/commit', ...withUpload, async (req, res) => {
+    const checked = await preview(ds, tankId(req), csvText(req));
+    if (!checked.canImport) {
+      throw new AppError(422, 'import_rejected', 'Nothing was imported: fix the rows named and upload the file again.', rowFields(checked.errors));
+    }
+    const result = await importReadings(ds, tankId(req), checked.rows);
+    if (result.duplicates.length > 0) {
+      throw new AppError(422, 'import_rejected', 'Nothing was imported: some tests are already logged.', rowFields(result.duplicates));
+    }
+    res.status(201).json({ imported: result.imported });
+  });
+
+  router.delete('/:readingId', async (req, res) => {
+    const id = uuid.safeParse(req.params.readingId);
+    if (!id.success || !(await deleteReading(ds, tankId(req), id.data))) throw notFound('No such water test on this tank.');
+    res.status(204).end();
+  });
+
+  router.use(uploadErrors);
+  return router;
+}

@@ -1,0 +1,55 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { createShareLinkSchema, shareableTypeSchema, type ShareLinkItem } from '../../shared/schemas/share.js';
+import type { AppDeps } from '../deps.js';
+import { notFound } from '../errors.js';
+import type { ShareLink } from '../entities/share-link.js';
+import { currentUser, requireAuth } from '../middleware/require-auth.js';
+import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
+import { createShareLink, listShareLinks, revokeShareLink, sharedView } from '../services/share-links.js';
+import { idParam } from './club-params.js';
+
+const listQuery = z.object({ itemType: shareableTypeSchema, itemId: z.string().uuid() });
+const TOKEN = /^[A-Za-z0-9_-]{43}$/;
+
+const present = (l: ShareLink): ShareLinkItem => ({
+  id: l.id,
+  itemType: l.itemType,
+  createdAt: l.createdAt.toISOString(),
+  expiresAt: l.expiresAt?.toISOString() ?? null,
+  revokedAt: l.revokedAt ? new Date(l.revokedAt).toISOString() : null,
+});
+
+/** /api/share-links — create, list and revoke read-only links (signed in). */
+export function shareLinksRouter({ dataSource: ds, config }: AppDeps): Router {
+  const router = Router();
+  const auth = requireAuth(ds, config);
+
+  router.post('/', auth, validateBody(createShareLinkSchema), async (req, res) => {
+    const { link, token } = await createShareLink(ds, currentUser(req).id, validBody(req, createShareLinkSchema));
+    res.status(201).json({ ...present(link), url: `${config.appUrl}/s/${token}` });
+  });
+
+  router.get('/', auth, validateQuery(listQuery), async (req, res) => {
+    const { itemType, itemId } = validQuery(req, listQuery);
+    res.json({ links: (await listShareLinks(ds, currentUser(req).id, itemType, itemId)).map(present) });
+  });
+
+  router.delete('/:linkId', auth, async (req, res) => {
+    await revokeShareLink(ds, currentUser(req).id, idParam(req, 'linkId', 'link'));
+    res.status(204).end();
+  });
+
+  return router;
+}
+
+/** /api/share/:token — the read-only view; no account needed. */
+export function sharedViewRouter({ dataSource: ds }: AppDeps): Router {
+  const router = Router();
+  router.get('/:token', async (req, res) => {
+    const token = req.params.token;
+    if (typeof token !== 'string' || !TOKEN.test(token)) throw notFound('This link does not work: it was revoked, has expired, or is mistyped.');
+    res.json(await sharedView(ds, token));
+  });
+  return router;
+}

@@ -1,0 +1,117 @@
+import type { DataSource } from 'typeorm';
+import { MoreThanOrEqual } from 'typeorm';
+import type { z } from 'zod';
+import type {
+  additionAdviceBodySchema,
+  calibrationBodySchema,
+  capacityTestBodySchema,
+  ensembleBodySchema,
+  removalAdviceBodySchema,
+  rescueAdviceBodySchema,
+} from '../../shared/schemas/plan.js';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../shared/schemas/scenario.js';
+import { tankScenario } from '../../shared/tank-scenario.js';
+import {
+  additionResponseSchema,
+  calibrationResponseSchema,
+  removalResponseSchema,
+  rescueResponseSchema,
+} from '../../simulation/advice/schemas.js';
+import { capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
+import { Plan } from '../entities/plan.js';
+import { Reading } from '../entities/reading.js';
+import type { Tank } from '../entities/tank.js';
+import { notFound, validationFailed } from '../errors.js';
+import { runEngine } from './engine-runs.js';
+import { scenarioTankOf } from './plans.js';
+
+/**
+ * Advice on a saved tank (and optionally one of its plans): the request carries only what the
+ * keeper chooses; the tank and plan come from the database. Each function builds the scenario,
+ * runs the advice on the engine pool and returns the advice layer's own response shape.
+ */
+
+const DAY_MS = 86_400_000;
+/** Readings the calibration uses by default: the last eight weeks (common practice: recent tests describe the present biofilter). */
+export const CALIBRATION_DEFAULT_DAYS = 56;
+/** Most readings one calibration uses (calibrationRequestSchema allows 2000; these are the newest). */
+export const CALIBRATION_MAX_READINGS = 500;
+
+async function planEvents(ds: DataSource, tank: Tank, planId: string | undefined): Promise<ScenarioEvent[]> {
+  if (!planId) return [];
+  const plan = await ds.getRepository(Plan).findOneBy({ id: planId, tankId: tank.id });
+  if (!plan) throw notFound('No such plan on this tank.');
+  return plan.events;
+}
+
+async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number } = {}): Promise<Scenario> {
+  try {
+    return parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }, options).scenario);
+  } catch (e) {
+    if (e instanceof ScenarioError) throw validationFailed(e.fields);
+    throw e;
+  }
+}
+
+/** Fastest safe schedule for the fish; the plan's own add-fish events are left out (the schedule replaces them). */
+export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>) {
+  const { planId, ...request } = body;
+  const events = (await planEvents(ds, tank, planId)).filter((e) => e.type !== 'add-fish');
+  const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365 });
+  const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } });
+  return additionResponseSchema.parse(value);
+}
+
+export async function removalAdvice(ds: DataSource, tank: Tank, body: z.output<typeof removalAdviceBodySchema>) {
+  const { planId, ...request } = body;
+  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId), { horizonDays: 365 });
+  const { value } = await runEngine({ kind: 'removal', request: { ...request, scenario } });
+  return removalResponseSchema.parse(value);
+}
+
+export async function rescueAdvice(ds: DataSource, tank: Tank, body: z.output<typeof rescueAdviceBodySchema>) {
+  const { planId, ...request } = body;
+  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId));
+  const { value } = await runEngine({ kind: 'rescue', request: { ...request, scenario } });
+  return rescueResponseSchema.parse(value);
+}
+
+export async function ensembleAdvice(ds: DataSource, tank: Tank, body: z.output<typeof ensembleBodySchema>) {
+  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, body.planId));
+  const { value } = await runEngine({ kind: 'ensemble', scenario, members: body.members, seed: body.seed, horizonDays: body.horizonDays });
+  return ensembleResponseSchema.parse(value);
+}
+
+/** Fits the model to the tank's own logged ammonia and nitrite tests (day 0 = the first one used). */
+export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.output<typeof calibrationBodySchema>, now = new Date()) {
+  const since = new Date(now.getTime() - (body.sinceDays ?? CALIBRATION_DEFAULT_DAYS) * DAY_MS);
+  const rows = (
+    await ds.getRepository(Reading).find({
+      where: { tankId: tank.id, takenAt: MoreThanOrEqual(since) },
+      order: { takenAt: 'DESC' },
+      take: CALIBRATION_MAX_READINGS,
+    })
+  )
+    .filter((r) => r.tanMgN !== null || r.no2MgN !== null)
+    .reverse();
+  if (rows.length < 2) {
+    throw validationFailed({ readings: 'Log at least two ammonia or nitrite tests in this period before fitting the model to them.' });
+  }
+  const t0 = rows[0].takenAt.getTime();
+  const readings = rows.map((r) => ({
+    day: (r.takenAt.getTime() - t0) / DAY_MS,
+    ...(r.tanMgN !== null ? { tanMgN: Math.min(r.tanMgN, 100) } : {}),
+    ...(r.no2MgN !== null ? { no2MgN: Math.min(r.no2MgN, 100) } : {}),
+  }));
+  const lastDay = readings.at(-1)!.day;
+  const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1) });
+  const { sinceDays: _since, ...options } = body;
+  const { value } = await runEngine({ kind: 'calibration', request: { ...options, scenario, readings } });
+  return { ...calibrationResponseSchema.parse(value), readingsUsed: rows.length, firstReadingAt: rows[0].takenAt.toISOString() };
+}
+
+export async function capacityTestAdvice(ds: DataSource, tank: Tank, body: z.output<typeof capacityTestBodySchema>) {
+  const scenario = await scenarioOf(ds, tank, [], body.start ? { start: body.start } : {});
+  const { value } = await runEngine({ kind: 'capacity-test', scenario, solution: body.solution, limits: body.limits, test: body.test });
+  return capacityTestResponseSchema.parse(value);
+}

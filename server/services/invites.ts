@@ -1,0 +1,104 @@
+import type { DataSource } from 'typeorm';
+import type { InvitePreview } from '../../shared/schemas/club.js';
+import { conflict, notFound, unauthorized, validationFailed } from '../errors.js';
+import { Club } from '../entities/club.js';
+import { ClubInvite } from '../entities/club-invite.js';
+import { ClubMembership } from '../entities/club-membership.js';
+import { User } from '../entities/user.js';
+import type { Mailer } from '../mail/mailer.js';
+import { clubInviteMail } from '../mail/templates/club-invite.js';
+import { signUp } from './accounts.js';
+import { newLinkToken, sha256Hex } from './secret-tokens.js';
+
+export const INVITE_VALID_DAYS = 7;
+export const INVALID_INVITE_MESSAGE = 'This invite link is not valid, was used already, or has expired. Ask the organizer for a new one.';
+
+/** Creates an invite and e-mails its single-use link; returns the invite row. */
+export async function createInvite(
+  ds: DataSource,
+  mailer: Mailer,
+  appUrl: string,
+  input: { clubId: string; clubName: string; inviter: User; email: string },
+): Promise<{ invite: ClubInvite; send: () => Promise<void> }> {
+  const already: unknown[] = await ds.query(
+    `SELECT 1 FROM club_memberships m JOIN users u ON u.id = m.user_id WHERE m.club_id = $1 AND u.email = $2`,
+    [input.clubId, input.email],
+  );
+  if (already.length > 0) throw conflict('That person is already a member.', { email: 'That person is already a member.' });
+  const token = newLinkToken();
+  const invite = await ds.getRepository(ClubInvite).save(
+    ds.getRepository(ClubInvite).create({
+      clubId: input.clubId,
+      email: input.email,
+      tokenHash: sha256Hex(token),
+      invitedBy: input.inviter.id,
+      expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
+      usedAt: null,
+    }),
+  );
+  const link = `${appUrl}/invite/${encodeURIComponent(token)}`;
+  const content = clubInviteMail({ clubName: input.clubName, invitedBy: input.inviter.displayName, link, validDays: INVITE_VALID_DAYS });
+  return { invite, send: () => mailer.send(input.email, content) };
+}
+
+async function liveInvite(ds: DataSource, token: string): Promise<ClubInvite | null> {
+  const invite = await ds.getRepository(ClubInvite).findOneBy({ tokenHash: sha256Hex(token) });
+  if (!invite || invite.usedAt || invite.expiresAt.getTime() <= Date.now()) return null;
+  return invite;
+}
+
+/** What the link holder sees before accepting; 404 for an unknown, used or expired token. */
+export async function previewInvite(ds: DataSource, token: string): Promise<InvitePreview> {
+  const invite = await liveInvite(ds, token);
+  if (!invite) throw notFound(INVALID_INVITE_MESSAGE);
+  const club = await ds.getRepository(Club).findOneByOrFail({ id: invite.clubId });
+  const inviter = await ds.getRepository(User).findOneBy({ id: invite.invitedBy });
+  return {
+    clubName: club.name,
+    invitedBy: inviter?.displayName ?? 'An organizer',
+    email: invite.email,
+    expiresAt: invite.expiresAt.toISOString(),
+    accountExists: await ds.getRepository(User).existsBy({ email: invite.email }),
+  };
+}
+
+/**
+ * Accepts an invite: the signed-in user joins as a member, or — signed out — a new account is
+ * made for the invited address (the link proves it). The token is claimed with one conditional
+ * UPDATE, so it works once even when two requests race. Returns the joining user's id.
+ */
+export async function acceptInvite(
+  ds: DataSource,
+  token: string,
+  signedInUserId: string | null,
+  newAccount: { displayName?: string; password?: string },
+): Promise<{ userId: string; clubId: string; created: boolean }> {
+  const preview = await liveInvite(ds, token);
+  if (!preview) throw notFound(INVALID_INVITE_MESSAGE);
+  let userId = signedInUserId;
+  let created = false;
+  if (!userId) {
+    if (await ds.getRepository(User).existsBy({ email: preview.email })) throw unauthorized('An account uses this e-mail: sign in, then open the link again.');
+    const fields: Record<string, string> = {};
+    if (!newAccount.displayName) fields.displayName = 'Enter a name.';
+    if (!newAccount.password) fields.password = 'Choose a password.';
+    if (Object.keys(fields).length) throw validationFailed(fields);
+    const user = await signUp(ds, { email: preview.email, displayName: newAccount.displayName!, password: newAccount.password! });
+    userId = user.id;
+    created = true;
+  }
+  const joiningUserId = userId;
+  const clubId = await ds.transaction(async (tx) => {
+    const claimed: unknown[] = await tx.query(
+      `UPDATE club_invites SET used_at = now() WHERE token_hash = $1 AND used_at IS NULL AND expires_at > now() RETURNING club_id`,
+      [sha256Hex(token)],
+    );
+    const rows = (Array.isArray(claimed[0]) ? claimed[0] : claimed) as { club_id: string }[];
+    const id = rows[0]?.club_id;
+    if (!id) throw notFound(INVALID_INVITE_MESSAGE);
+    const memberships = tx.getRepository(ClubMembership);
+    if (!(await memberships.existsBy({ clubId: id, userId: joiningUserId }))) await memberships.insert({ clubId: id, userId: joiningUserId, role: 'member' });
+    return id;
+  });
+  return { userId: joiningUserId, clubId, created };
+}

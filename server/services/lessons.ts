@@ -1,0 +1,103 @@
+import type { DataSource } from 'typeorm';
+import type { ClubRole } from '../../shared/schemas/auth.js';
+import type { LessonDetail, LessonSummary } from '../../shared/schemas/lesson.js';
+import type { Scenario } from '../../shared/schemas/scenario.js';
+import { forbidden, notFound, validationFailed } from '../errors.js';
+import { ClubMembership } from '../entities/club-membership.js';
+import { Lesson } from '../entities/lesson.js';
+import { Livestock } from '../entities/livestock.js';
+import { Tank } from '../entities/tank.js';
+import { loadSharedItem, visibleShare } from './club-shares.js';
+import { scenarioFromPlanOrNull } from './scenario-from-plan.js';
+
+export const LESSON_AUTHOR_ROLES: readonly ClubRole[] = ['organizer', 'mentor'];
+
+export interface LessonInput {
+  title: string;
+  summary: string;
+  kind: 'single' | 'compare';
+  scenario?: Scenario;
+  stagedScenario?: Scenario;
+  fromShareId?: string;
+  steps: { title: string; body: string }[];
+}
+
+/** A shared plan (visible to the mentor) as a scenario; 404 when it is not visible. */
+async function scenarioFromShare(ds: DataSource, membership: ClubMembership, shareId: string): Promise<Scenario> {
+  const share = await visibleShare(ds, membership, shareId);
+  const { tankId, plan } = await loadSharedItem(ds, share);
+  if (!plan) throw notFound('Start a lesson from a shared plan, not a tank.');
+  const tank = await ds.getRepository(Tank).findOneByOrFail({ id: tankId });
+  const livestock = await ds.getRepository(Livestock).findBy({ tankId });
+  const scenario = scenarioFromPlanOrNull(tank, livestock, plan);
+  if (!scenario) throw validationFailed({ fromShareId: 'This plan cannot be forecast as it stands (check its tank and fish), so it cannot become a lesson.' });
+  return scenario;
+}
+
+/** Mentors and organizers create lessons in their club. */
+export async function createLesson(ds: DataSource, membership: ClubMembership, input: LessonInput): Promise<Lesson> {
+  if (!LESSON_AUTHOR_ROLES.includes(membership.role)) throw forbidden('Mentors and organizers build lessons.');
+  const scenario = input.scenario ?? (await scenarioFromShare(ds, membership, input.fromShareId!));
+  const repo = ds.getRepository(Lesson);
+  return repo.save(
+    repo.create({
+      clubId: membership.clubId,
+      authorId: membership.userId,
+      title: input.title,
+      summary: input.summary,
+      kind: input.kind,
+      scenario,
+      stagedScenario: input.stagedScenario ?? null,
+      steps: input.steps,
+    }),
+  );
+}
+
+/** Lessons of every club the user belongs to. */
+export async function listLessons(ds: DataSource, userId: string): Promise<LessonSummary[]> {
+  const rows: { id: string; club_id: string; club_name: string; title: string; summary: string; kind: 'single' | 'compare'; author_name: string | null }[] =
+    await ds.query(
+      `SELECT l.id, l.club_id, c.name AS club_name, l.title, l.summary, l.kind, u.display_name AS author_name
+         FROM lessons l JOIN clubs c ON c.id = l.club_id
+         JOIN club_memberships m ON m.club_id = l.club_id AND m.user_id = $1
+         LEFT JOIN users u ON u.id = l.author_id
+        ORDER BY c.name, l.created_at, l.id`,
+      [userId],
+    );
+  return rows.map((r) => ({ id: r.id, clubId: r.club_id, clubName: r.club_name, title: r.title, summary: r.summary, kind: r.kind, authorName: r.author_name ?? 'A former mentor' }));
+}
+
+/** A lesson and the caller's membership of its club; 404 outside the club. */
+export async function loadLesson(ds: DataSource, userId: string, lessonId: string): Promise<{ lesson: Lesson; membership: ClubMembership }> {
+  const lesson = await ds.getRepository(Lesson).findOneBy({ id: lessonId });
+  const membership = lesson ? await ds.getRepository(ClubMembership).findOne({ where: { clubId: lesson.clubId, userId }, relations: { club: true } }) : null;
+  if (!lesson || !membership) throw notFound('No such lesson.');
+  return { lesson, membership };
+}
+
+/** The author, or an organizer of the club, manages a lesson. */
+export function canManageLesson(lesson: Lesson, membership: ClubMembership): boolean {
+  return membership.role === 'organizer' || (membership.role === 'mentor' && lesson.authorId === membership.userId);
+}
+
+export async function authorName(ds: DataSource, lesson: Lesson): Promise<string> {
+  if (!lesson.authorId) return 'A former mentor';
+  const rows: { display_name: string }[] = await ds.query(`SELECT display_name FROM users WHERE id = $1`, [lesson.authorId]);
+  return rows[0]?.display_name ?? 'A former mentor';
+}
+
+export function presentLessonDetail(lesson: Lesson, membership: ClubMembership, author: string): LessonDetail {
+  return {
+    id: lesson.id,
+    clubId: lesson.clubId,
+    clubName: membership.club?.name ?? '',
+    title: lesson.title,
+    summary: lesson.summary,
+    kind: lesson.kind,
+    authorName: author,
+    steps: lesson.steps,
+    scenario: lesson.scenario,
+    stagedScenario: lesson.stagedScenario,
+    canManage: canManageLesson(lesson, membership),
+  };
+}

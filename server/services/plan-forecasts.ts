@@ -1,0 +1,69 @@
+import type { DataSource } from 'typeorm';
+import { forecastSentences, START_SENTENCES } from '../../shared/forecast-view.js';
+import type { ForecastView, PlanForecastResponse } from '../../shared/schemas/plan.js';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent } from '../../shared/schemas/scenario.js';
+import { tankScenario, type StartReason } from '../../shared/tank-scenario.js';
+import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAUTIONS } from '../../simulation/advice/cautions.js';
+import { validationFailed } from '../errors.js';
+import { FORECAST_BAND_MEMBERS } from '../workers/engine-tasks.js';
+import { runEngine } from './engine-runs.js';
+import { ENGINE_VERSION, inputHash, readCache, writeCache } from './forecast-cache.js';
+import { scenarioTankOf, type OwnPlan } from './plans.js';
+
+interface StoredForecast {
+  forecast: ForecastView;
+  explanation: string[];
+}
+
+/** The parsed scenario of a saved plan on its tank; a scenario the engine refuses → 400 with its fields. */
+export async function planScenario(ds: DataSource, own: OwnPlan, events: readonly ScenarioEvent[] = own.plan.events): Promise<{ scenario: Scenario; startReason: StartReason }> {
+  try {
+    const built = tankScenario(await scenarioTankOf(ds, own.tank), { name: own.plan.name, events });
+    return { scenario: parseScenario(built.scenario), startReason: built.startReason };
+  } catch (e) {
+    if (e instanceof ScenarioError) throw validationFailed(e.fields);
+    throw e;
+  }
+}
+
+/** Cautions for a plan: always the estimate ones; dosing, rehoming and water changes when it has them. */
+export function planCautions(events: readonly ScenarioEvent[]): string[] {
+  const has = (types: ScenarioEvent['type'][]) => events.some((e) => types.includes(e.type));
+  return [
+    ...ESTIMATE_CAUTIONS,
+    ...(has(['ammonia-dose']) ? DOSING_CAUTIONS : []),
+    ...(events.some((e) => e.type === 'remove-fish' || (e.type === 'move-fish' && e.direction === 'out')) ? REHOMING_CAUTIONS : []),
+    ...(has(['water-change']) ? WATER_CHANGE_CAUTIONS : []),
+  ];
+}
+
+/**
+ * The saved plan's forecast with its uncertainty band, from the cache when the same inputs ran
+ * before (the plan's name is not an input), else from the engine pool.
+ */
+export async function forecastPlan(ds: DataSource, own: OwnPlan): Promise<PlanForecastResponse> {
+  const { scenario, startReason } = await planScenario(ds, own);
+  const hash = inputHash('plan-forecast', { scenario: { ...scenario, name: undefined }, bandMembers: FORECAST_BAND_MEMBERS });
+  const hit = await readCache<StoredForecast>(ds, hash);
+  let stored: StoredForecast;
+  let computedAt: Date;
+  if (hit) {
+    stored = hit.result;
+    computedAt = hit.createdAt;
+  } else {
+    const { value, ms } = await runEngine<StoredForecast>({ kind: 'forecast', scenario, band: true });
+    stored = value;
+    computedAt = await writeCache(ds, hash, stored, ms);
+  }
+  return {
+    planId: own.plan.id,
+    cached: Boolean(hit),
+    inputHash: hash,
+    engineVersion: ENGINE_VERSION,
+    startReason,
+    computedAt: computedAt.toISOString(),
+    forecast: stored.forecast,
+    explanation: [START_SENTENCES[startReason], ...forecastSentences(stored.forecast), ...stored.explanation],
+    cautions: planCautions(own.plan.events),
+  };
+}

@@ -1,0 +1,107 @@
+import type { DataSource } from 'typeorm';
+import { parseScenario, ScenarioError, type ScenarioEvent } from '../../shared/schemas/scenario.js';
+import type { PlanStatus } from '../../shared/schemas/tank.js';
+import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
+import { Livestock } from '../entities/livestock.js';
+import { Plan } from '../entities/plan.js';
+import { Reading } from '../entities/reading.js';
+import { Tank } from '../entities/tank.js';
+import { validationFailed } from '../errors.js';
+
+/** A plan with the tank it belongs to (the owner already checked). */
+export interface OwnPlan {
+  plan: Plan;
+  tank: Tank;
+}
+
+/** The tank only when `ownerId` owns it. */
+export async function findOwnTank(ds: DataSource, ownerId: string, tankId: string): Promise<Tank | null> {
+  return ds.getRepository(Tank).findOneBy({ id: tankId, ownerId });
+}
+
+/** The plan only when its tank belongs to `ownerId`. */
+export async function findOwnPlan(ds: DataSource, ownerId: string, planId: string): Promise<OwnPlan | null> {
+  const plan = await ds.getRepository(Plan).findOneBy({ id: planId });
+  if (!plan) return null;
+  const tank = await findOwnTank(ds, ownerId, plan.tankId);
+  return tank ? { plan, tank } : null;
+}
+
+export async function listTankPlans(ds: DataSource, tank: Tank): Promise<OwnPlan[]> {
+  const plans = await ds.getRepository(Plan).find({ where: { tankId: tank.id }, order: { startDate: 'DESC', createdAt: 'DESC' } });
+  return plans.map((plan) => ({ plan, tank }));
+}
+
+/** Every plan of the keeper's tanks, active first, then newest start. */
+export async function listOwnPlans(ds: DataSource, ownerId: string): Promise<OwnPlan[]> {
+  const tanks = await ds.getRepository(Tank).find({ where: { ownerId } });
+  if (tanks.length === 0) return [];
+  const byId = new Map(tanks.map((t) => [t.id, t]));
+  const plans = await ds
+    .getRepository(Plan)
+    .createQueryBuilder('p')
+    .where('p.tank_id IN (:...ids)', { ids: [...byId.keys()] })
+    .orderBy(`CASE p.status WHEN 'active' THEN 0 WHEN 'draft' THEN 1 ELSE 2 END`)
+    .addOrderBy('p.start_date', 'DESC')
+    .addOrderBy('p.created_at', 'DESC')
+    .getMany();
+  return plans.map((plan) => ({ plan, tank: byId.get(plan.tankId)! }));
+}
+
+/** What the scenario builder needs of a stored tank: its livestock and whether it has tests. */
+export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<ScenarioTank> {
+  const [livestock, readingCount] = await Promise.all([
+    ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
+    ds.getRepository(Reading).count({ where: { tankId: tank.id } }),
+  ]);
+  return {
+    volumeL: tank.volumeL,
+    temperatureC: tank.temperatureC,
+    ph: tank.ph,
+    khDkh: tank.khDkh,
+    tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
+    setup: tank.setup ?? {},
+    livestock: livestock.map((l) => ({ id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm })),
+    readings: new Array<null>(readingCount).fill(null),
+  };
+}
+
+/**
+ * Refuses events that cannot run in this tank (e.g. rinsing a zone it does not have), naming
+ * the event field. Problems of the tank itself (a custom fish without a length) do not stop a
+ * plan being saved; its forecast reports them.
+ */
+export async function checkEventsFitTank(ds: DataSource, tank: Tank, events: ScenarioEvent[]): Promise<void> {
+  try {
+    parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }).scenario);
+  } catch (e) {
+    if (!(e instanceof ScenarioError)) throw e;
+    const eventFields = Object.fromEntries(Object.entries(e.fields).filter(([k]) => k.startsWith('events.')));
+    if (Object.keys(eventFields).length > 0) throw validationFailed(eventFields);
+  }
+}
+
+export interface PlanFields {
+  name: string;
+  startDate: string;
+  status: PlanStatus;
+  events: ScenarioEvent[];
+}
+
+export async function createPlan(ds: DataSource, tank: Tank, fields: PlanFields): Promise<Plan> {
+  await checkEventsFitTank(ds, tank, fields.events);
+  const repo = ds.getRepository(Plan);
+  return repo.save(repo.create({ tankId: tank.id, ...fields }));
+}
+
+export async function updatePlan(ds: DataSource, own: OwnPlan, fields: Partial<PlanFields>): Promise<Plan> {
+  if (fields.events) await checkEventsFitTank(ds, own.tank, fields.events);
+  const repo = ds.getRepository(Plan);
+  const changes = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)) as Partial<PlanFields>;
+  await repo.update({ id: own.plan.id }, changes);
+  return repo.findOneByOrFail({ id: own.plan.id });
+}
+
+export async function deletePlan(ds: DataSource, own: OwnPlan): Promise<void> {
+  await ds.getRepository(Plan).delete({ id: own.plan.id });
+}

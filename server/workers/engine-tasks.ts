@@ -1,0 +1,107 @@
+/**
+ * The engine work the API hands to worker threads (engine-pool.ts). Plain data in, plain data
+ * out: errors cannot cross a thread boundary with their class, so refusals come back as
+ * `{ ok: false }` results the route turns into 400s.
+ */
+import { ScenarioError, parseScenario } from '../../shared/schemas/scenario.js';
+import { forecastView } from '../../shared/forecast-view.js';
+import { forecastParsed } from '../../simulation/forecast.js';
+import {
+  calibrate,
+  capacityTestProtocol,
+  estimateCapacityFromTest,
+  fastestSafeSchedule,
+  rescueWaterChanges,
+  runEnsemble,
+  supplementaryDosing,
+  bandExplanation,
+  type AdditionRequest,
+  type CalibrationRequest,
+  type RemovalRequest,
+  type RescueRequest,
+} from '../../simulation/advice/index.js';
+import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble.js';
+import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
+import type { ScenarioInput } from '../../shared/schemas/scenario.js';
+import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
+
+export type EngineTask =
+  | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
+  | { kind: 'addition'; request: Omit<AdditionRequest, 'scenario'> & { scenario: ScenarioInput } }
+  | { kind: 'removal'; request: Omit<RemovalRequest, 'scenario'> & { scenario: ScenarioInput } }
+  | { kind: 'rescue'; request: Omit<RescueRequest, 'scenario'> & { scenario: ScenarioInput } }
+  | { kind: 'ensemble'; scenario: ScenarioInput; members?: number; seed?: number; horizonDays?: number }
+  | { kind: 'calibration'; request: Omit<CalibrationRequest, 'scenario'> & { scenario: ScenarioInput } }
+  | {
+      kind: 'capacity-test';
+      scenario: ScenarioInput;
+      solution?: { percentNH3: number; densityGPerMl?: number };
+      limits?: LimitSettings;
+      test?: { doseMgNPerL: number; readings: { hour: number; tanMgN: number; no2MgN?: number }[]; kit?: { stepMgN: number; relativeError: number } };
+    };
+
+export type EngineResult =
+  | { ok: true; value: unknown; ms: number }
+  | { ok: false; reason: 'scenario'; message: string; fields: Record<string, string> }
+  | { ok: false; reason: 'refused'; message: string };
+
+/** Band members for a saved plan's forecast (the advice layer's minimum: ensemble.ts). */
+export const FORECAST_BAND_MEMBERS = MIN_BAND_MEMBERS;
+
+function run(task: EngineTask): unknown {
+  switch (task.kind) {
+    case 'forecast': {
+      const scenario = parseScenario(task.scenario);
+      const central = forecastParsed(scenario);
+      if (!task.band) return { forecast: forecastView(central), explanation: [] };
+      const ensemble = runEnsemble(scenario, { members: FORECAST_BAND_MEMBERS }, { horizonDays: central.series.days.at(-1) });
+      return {
+        forecast: forecastView(central, ensemble.band, ensemble.forecasts.length),
+        explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED)],
+      };
+    }
+    case 'addition':
+      return fastestSafeSchedule({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'removal':
+      return supplementaryDosing({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'rescue':
+      return rescueWaterChanges({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'ensemble': {
+      const scenario = parseScenario(task.scenario);
+      const seed = task.seed ?? DEFAULT_SEED;
+      const result = runEnsemble(scenario, { members: task.members ?? MIN_BAND_MEMBERS, seed }, task.horizonDays ? { horizonDays: task.horizonDays } : {});
+      return {
+        band: result.band,
+        members: result.forecasts.length,
+        failed: result.failed.length,
+        explanation: [bandExplanation(result.forecasts.length, seed)],
+        cautions: [...ESTIMATE_CAUTIONS],
+      };
+    }
+    case 'calibration':
+      return calibrate({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'capacity-test': {
+      const scenario = parseScenario(task.scenario);
+      const protocol = capacityTestProtocol(scenario, task.solution, task.limits);
+      const estimate = task.test ? estimateCapacityFromTest(scenario, task.test.doseMgNPerL, task.test.readings, task.test.kit) : null;
+      return { protocol: { ...protocol, readingHours: [...protocol.readingHours] }, estimate };
+    }
+  }
+}
+
+/** Runs one task; the worker's exported function (also callable in-process). */
+export function runEngineTask(task: EngineTask): EngineResult {
+  const t0 = performance.now();
+  try {
+    const value = run(task);
+    return { ok: true, value, ms: performance.now() - t0 };
+  } catch (e) {
+    if (e instanceof ScenarioError) return { ok: false, reason: 'scenario', message: e.message, fields: e.fields };
+    // The engine and advice layer refuse impossible requests with RangeError (e.g. no possible
+    // day for a batch) and loads the zones cannot carry with LoadTooHighError: the keeper's input.
+    if (e instanceof RangeError || (e instanceof Error && e.name === 'LoadTooHighError')) {
+      return { ok: false, reason: 'refused', message: e.message };
+    }
+    throw e;
+  }
+}

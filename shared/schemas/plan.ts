@@ -1,0 +1,148 @@
+import { z } from 'zod';
+import { eventSchema, fishGroupSchema, startSchema } from './scenario';
+import { planStatusSchema } from './tank';
+import {
+  additionRequestSchema,
+  adviceSettingsSchema,
+  ammoniaSolutionSchema,
+  calibrationRequestSchema,
+  capacityTestProtocolSchema,
+  capacityTestRequestSchema,
+  ensembleBandSchema,
+  removalRequestSchema,
+  rescueRequestSchema,
+  calibrationResponseSchema,
+  limitSettingsSchema,
+} from '../../simulation/advice/schemas';
+
+/**
+ * Change plans and their forecasts over the API (issue 5 part B). Events are the engine's own
+ * `eventSchema`; days count from the plan's start date.
+ */
+
+const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-14.')
+  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a calendar date.');
+
+/** Most events one plan holds (a year of twice-weekly doses fits). */
+export const PLAN_EVENT_LIMIT = 200;
+
+const planName = z.string().trim().min(1, 'Give the plan a name.').max(80, 'At most 80 characters.');
+const planEvents = z.array(eventSchema).max(PLAN_EVENT_LIMIT, `At most ${PLAN_EVENT_LIMIT} events.`);
+
+export const planCreateSchema = z.object({
+  name: planName,
+  startDate: isoDate,
+  status: planStatusSchema.default('draft'),
+  events: planEvents.default([]),
+});
+export type PlanCreateInput = z.input<typeof planCreateSchema>;
+
+export const planPatchSchema = z
+  .object({ name: planName.optional(), startDate: isoDate.optional(), status: planStatusSchema.optional(), events: planEvents.optional() })
+  .refine((p) => Object.values(p).some((v) => v !== undefined), { message: 'Send at least one field to change.', path: ['_'] });
+export type PlanPatchInput = z.input<typeof planPatchSchema>;
+
+/** One day the keeper should test, and why. */
+export const checkDaySchema = z.object({ day: z.number(), date: z.string(), reasons: z.array(z.string()).min(1) });
+export type CheckDay = z.infer<typeof checkDaySchema>;
+
+export const planDetailSchema = z.object({
+  id: z.string().uuid(),
+  tankId: z.string().uuid(),
+  tankName: z.string(),
+  name: z.string(),
+  startDate: z.string(),
+  status: planStatusSchema,
+  events: z.array(eventSchema),
+  checkDays: z.array(checkDaySchema),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+});
+export type PlanDetail = z.infer<typeof planDetailSchema>;
+export const planListSchema = z.object({ plans: z.array(planDetailSchema) });
+
+// ---- forecasts -------------------------------------------------------------------------
+
+const series = z.array(z.number());
+const peakSchema = z.object({ value: z.number(), day: z.number() });
+const excursionSchema = z.object({ days: z.number(), firstDay: z.number().nullable() });
+const spreadSchema = z.object({ p10: series, p90: series });
+
+/** A forecast shaped for the chart and its text summary (shared/forecast-view.ts). */
+export const forecastViewSchema = z.object({
+  days: series,
+  tanMgN: series,
+  freeNh3MgL: series,
+  no2MgN: series,
+  no3MgN: series,
+  /** total ammonia- and nitrite-oxidiser capacity over all zones, mg N/day */
+  aoMgNPerDay: series,
+  noMgNPerDay: series,
+  /** TAN supplied by fish and detritus (doses excluded), mg N/day */
+  loadMgNPerDay: series,
+  limits: z.object({ freeNh3MgNH3: z.number(), tanChronicMgN: z.number(), tanAcuteMgN: z.number(), no2MgN: z.number() }),
+  peaks: z.object({ tan: peakSchema, freeNh3: peakSchema, no2: peakSchema, no3: peakSchema }),
+  daysOver: z.object({ freeNh3: excursionSchema, tanChronic: excursionSchema, tanAcute: excursionSchema, no2: excursionSchema }),
+  band: z.object({ tanMgN: spreadSchema, freeNh3MgL: spreadSchema, no2MgN: spreadSchema, no3MgN: spreadSchema, members: z.number().int() }).nullable(),
+});
+export type ForecastView = z.infer<typeof forecastViewSchema>;
+
+export const START_REASONS = ['given', 'mature-present-load', 'new-unseeded', 'new-no-fish'] as const;
+
+export const planForecastResponseSchema = z.object({
+  planId: z.string().uuid(),
+  /** true when the stored result for the same inputs was returned without running the engine */
+  cached: z.boolean(),
+  inputHash: z.string().length(64),
+  engineVersion: z.string(),
+  startReason: z.enum(START_REASONS),
+  computedAt: z.string(),
+  forecast: forecastViewSchema,
+  explanation: z.array(z.string()).min(1),
+  cautions: z.array(z.string()).min(1),
+});
+export type PlanForecastResponse = z.infer<typeof planForecastResponseSchema>;
+
+// ---- advice request bodies: only what the keeper chooses; tank and plan come from the database
+
+const planRef = { planId: z.string().uuid('Not a plan id.').optional() };
+
+export const additionAdviceBodySchema = additionRequestSchema.omit({ scenario: true }).extend(planRef);
+export const removalAdviceBodySchema = removalRequestSchema.omit({ scenario: true }).extend(planRef);
+export const rescueAdviceBodySchema = rescueRequestSchema.omit({ scenario: true }).extend(planRef);
+export const ensembleBodySchema = z.object({
+  ...planRef,
+  members: z.number().int().min(64).max(1024).optional(),
+  seed: z.number().int().optional(),
+  horizonDays: z.number().gt(0).max(365).optional(),
+});
+export const calibrationBodySchema = calibrationRequestSchema
+  .omit({ scenario: true, readings: true })
+  .extend({ sinceDays: z.number().int().min(1).max(365).optional() });
+export const capacityTestBodySchema = z.object({
+  solution: ammoniaSolutionSchema.optional(),
+  limits: limitSettingsSchema.optional(),
+  /** The test's readings, once taken: the answer then carries the capacity estimate. */
+  test: capacityTestRequestSchema.omit({ scenario: true }).optional(),
+  start: startSchema.optional(),
+});
+
+export const ensembleResponseSchema = z.object({
+  band: ensembleBandSchema,
+  members: z.number().int(),
+  failed: z.number().int(),
+  explanation: z.array(z.string()).min(1),
+  cautions: z.array(z.string()).min(1),
+});
+export const calibrationAdviceResponseSchema = calibrationResponseSchema.extend({
+  readingsUsed: z.number().int(),
+  firstReadingAt: z.string(),
+});
+export const capacityTestResponseSchema = z.object({
+  protocol: capacityTestProtocolSchema,
+  estimate: calibrationResponseSchema.nullable(),
+});
+
+export { adviceSettingsSchema, fishGroupSchema };

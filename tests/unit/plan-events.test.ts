@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest';
+import { addDays, planCheckDays } from '@/shared/plan-check-days';
+import { applySchedule, sortEvents } from '@/lib/draft-store';
+import { blankFields, describeEvent, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
+import type { ScenarioEvent } from '@/shared/schemas/scenario';
+
+const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: { species: 'neon-tetra', count, lengthCm: 3 } });
+const wc = (day: number): ScenarioEvent => ({ type: 'water-change', day, percent: 25 });
+
+describe('planCheckDays', () => {
+  it('asks for a test before the plan and daily for three days after adding fish (common practice)', () => {
+    const days = planCheckDays([add(0, 6)], '2026-03-01').map((d) => d.day);
+    expect(days.slice(0, 4)).toEqual([0, 1, 2, 3]);
+  });
+
+  it('merges reasons that fall on the same day', () => {
+    const d7 = planCheckDays([add(0, 6), add(5, 6)], '2026-03-01').find((d) => d.day === 7)!;
+    expect(d7.reasons).toHaveLength(2);
+  });
+
+  it('answers no check days for a plan without events', () => {
+    expect(planCheckDays([], '2026-03-01')).toEqual([]);
+  });
+
+  it('dates each day from the start date, and leaves the date empty for an unreadable start', () => {
+    expect(addDays('2026-02-27', 3)).toBe('2026-03-02');
+    expect(addDays('soon', 3)).toBe('');
+  });
+});
+
+describe('applySchedule', () => {
+  it("replaces the plan's add-fish events with the schedule's and keeps the rest, by day", () => {
+    const next = applySchedule([add(0, 12), wc(4)], [add(0, 4), add(9, 8)]);
+    expect(next).toEqual([add(0, 4), wc(4), add(9, 8)]);
+  });
+
+  it('sorts events by day, keeping same-day order', () => {
+    expect(sortEvents([wc(3), add(1, 2), wc(1)])).toEqual([add(1, 2), wc(1), wc(3)]);
+  });
+});
+
+describe('event fields', () => {
+  it('round-trips every kind of event through its form fields', () => {
+    const samples: ScenarioEvent[] = [
+      add(2, 6),
+      { type: 'remove-fish', day: 3, species: 'neon-tetra', count: 2 },
+      { type: 'move-fish', day: 1, direction: 'out', otherTank: 'Shrimp cube', fish: { species: 'neon-tetra', count: 3 } },
+      { type: 'feeding', day: 0, feeding: { mode: 'grams', gramsPerDay: 1.5 } },
+      wc(4),
+      { type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 1 }, repeatEveryDays: 2, repeatCount: 5 },
+      { type: 'filter-clean', day: 6, zoneId: 'filter', action: 'rinse', shareLost: 0.3 },
+      { type: 'medication', day: 2, name: 'Salt', durationDays: 5, oxidationMultiplier: 0.5 },
+      { type: 'temperature', day: 1, temperatureC: 27 },
+      { type: 'aeration-loss', day: 1, durationDays: 1, oxygenShare: 0.5 },
+    ];
+    expect(samples.map((e) => e.type).sort()).toEqual(EVENT_TYPES.map((t) => t.type).sort());
+    for (const e of samples) expect(fieldsToEvent(e.type, eventToFields(e))).toEqual({ event: e });
+  });
+
+  it('puts a schema error under the field the keeper typed in', () => {
+    const result = fieldsToEvent('add-fish', { ...blankFields('add-fish'), species: 'neon-tetra', count: '0' });
+    expect(result).toEqual({ errors: { count: expect.any(String) } });
+  });
+
+  it('refuses text that is not a number in a number field', () => {
+    const result = fieldsToEvent('water-change', { day: '2', percent: 'a lot' });
+    expect('errors' in result && result.errors.percent).toBeTruthy();
+  });
+
+  it('accepts a decimal comma', () => {
+    expect(fieldsToEvent('water-change', { day: '2', percent: '12,5' })).toEqual({ event: { type: 'water-change', day: 2, percent: 12.5 } });
+  });
+
+  it('names catalogue fish by their common name', () => {
+    expect(describeEvent(add(0, 4))).toBe('Add 4 Neon tetra');
+  });
+});
