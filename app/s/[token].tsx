@@ -1,7 +1,15 @@
+import { lazy, Suspense } from 'react';
 import { useLocalSearchParams } from 'expo-router';
-import { SharedViewScreen } from '@/components/share/shared-view-screen';
+import { Loading } from '@/components/ui/load-state';
+
+// A shared plan or lesson brings the engine and the chart: loaded only on this page.
+const SharedViewScreen = lazy(() => import('@/components/share/shared-view-screen').then((m) => ({ default: m.SharedViewScreen })));
 
 export default function SharedViewRoute() {
   const { token } = useLocalSearchParams<{ token: string }>();
-  return <SharedViewScreen token={typeof token === 'string' ? token : ''} />;
+  return (
+    <Suspense fallback={<Loading label="Opening the shared page…" testID="shared-loading" />}>
+      <SharedViewScreen token={typeof token === 'string' ? token : ''} />
+    </Suspense>
+  );
 }

@@ -43,7 +43,8 @@ export type EngineTask =
 export type EngineResult =
   | { ok: true; value: unknown; ms: number }
   | { ok: false; reason: 'scenario'; message: string; fields: Record<string, string> }
-  | { ok: false; reason: 'refused'; message: string };
+  | { ok: false; reason: 'refused'; message: string }
+  | { ok: false; reason: 'unsolvable'; message: string };
 
 /** Band members for a saved plan's forecast (the advice layer's minimum: ensemble.ts). */
 export const FORECAST_BAND_MEMBERS = MIN_BAND_MEMBERS;
@@ -102,6 +103,8 @@ export function runEngineTask(task: EngineTask): EngineResult {
     if (e instanceof RangeError || (e instanceof Error && e.name === 'LoadTooHighError')) {
       return { ok: false, reason: 'refused', message: e.message };
     }
+    // The solver gave up (step limit): extreme but valid input. Said plainly, never a 500.
+    if (e instanceof Error && e.name === 'SolverError') return { ok: false, reason: 'unsolvable', message: e.message };
     throw e;
   }
 }
