@@ -4,6 +4,9 @@ import { csrfRejected, unsupportedMediaType } from '../errors.js';
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
 
+/** The only `/api` paths that take a file upload (multipart/form-data); the CSRF header is still required. */
+export const MULTIPART_PATHS: readonly RegExp[] = [/^\/tanks\/[^/]+\/readings\/import\/(preview|commit)$/];
+
 function hasBody(headers: Record<string, string | string[] | undefined>): boolean {
   const length = headers['content-length'];
   return headers['transfer-encoding'] !== undefined || (length !== undefined && length !== '0');
@@ -20,7 +23,10 @@ export const requestGuards: RequestHandler = (req, _res, next) => {
   if (SAFE_METHODS.has(req.method)) return next();
   if (req.get('sec-fetch-site') === 'cross-site') return next(csrfRejected('Cross-site requests are not accepted.'));
   if (req.get(CSRF_HEADER) !== CSRF_HEADER_VALUE) return next(csrfRejected());
-  if (hasBody(req.headers) && !req.is('application/json')) return next(unsupportedMediaType());
+  if (hasBody(req.headers) && !req.is('application/json')) {
+    const upload = req.is('multipart/form-data') && MULTIPART_PATHS.some((p) => p.test(req.path));
+    if (!upload) return next(unsupportedMediaType());
+  }
   next();
 };
 
