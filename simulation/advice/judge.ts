@@ -142,11 +142,19 @@ export interface JudgeSpec {
 }
 
 /**
- * A tank described as settled (mature start) is taken to test under its limits today: draws
- * whose steady state would already be over a limit contradict that and are replaced. Other
- * starts give the day-0 water explicitly, so every draw agrees on it.
+ * A settled tank sits well under its limits (common practice: a cycled tank tests "0" for
+ * ammonia and nitrite on a hobby kit); at most this share of each limit on day 0.
  */
-export function settledTankAccepts(scenario: Scenario, limits: readonly AppliedLimit[]): (f: Forecast) => boolean {
+export const SETTLED_MAX_SHARE_OF_LIMIT = 0.5;
+
+/**
+ * A tank described as settled (mature start) is taken to test clean today: draws whose steady
+ * state would already sit near or over a limit (slow or weak-affinity nitrite oxidisers that
+ * would hold nitrite there forever) contradict that and are replaced. `share` is the part of
+ * each limit allowed on day 0. Other starts give the day-0 water explicitly, so every draw
+ * agrees on it.
+ */
+export function settledTankAccepts(scenario: Scenario, limits: readonly AppliedLimit[], share = SETTLED_MAX_SHARE_OF_LIMIT): (f: Forecast) => boolean {
   if (scenario.start.kind !== 'mature') return () => true;
   return (f) => {
     const first: JudgedSeries = {
@@ -157,8 +165,22 @@ export function settledTankAccepts(scenario: Scenario, limits: readonly AppliedL
       ph: [f.series.ph[0]],
       temperatureC: [f.series.temperatureC[0]],
     };
-    return judgeSeries(first, limits).safe;
+    return judgeSeries(first, limits).peakRatio <= share;
   };
+}
+
+/**
+ * The conditioned ensemble of a settled tank: draws reading well under the limits today, or —
+ * when the tank's own water (tap ammonia, low pH or temperature) leaves no such draw — draws
+ * merely under them.
+ */
+function settledEnsemble(reference: Scenario, limits: readonly AppliedLimit[], options: ForecastOptions, spec: JudgeSpec) {
+  try {
+    return runConditionedEnsemble(reference, spec.ensemble ?? {}, options, settledTankAccepts(reference, limits));
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    return runConditionedEnsemble(reference, spec.ensemble ?? {}, options, settledTankAccepts(reference, limits, 1));
+  }
 }
 
 /** Member indices ordered by the peak ratio of their forecast, ascending. */
@@ -176,7 +198,7 @@ export function edgePeakRatio(forecasts: readonly Forecast[], limits: readonly A
 
 /** Builds the judge from the ensemble of a reference plan. */
 export function createJudge(reference: Scenario, limits: readonly AppliedLimit[], options: ForecastOptions, spec: JudgeSpec = {}): UpperEdgeJudge {
-  const ensemble = runConditionedEnsemble(reference, spec.ensemble ?? {}, options, settledTankAccepts(reference, limits));
+  const ensemble = settledEnsemble(reference, limits, options, spec);
   const ranked = rankByPeakRatio(ensemble, limits);
   const n = ranked.length;
   const size = Math.max(1, Math.min(spec.boundingSize ?? DEFAULT_BOUNDING_SIZE, n));

@@ -145,7 +145,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   }
   const events = [...removalEvents, ...feedEvents, ...doseEvents(dose), ...restockEvents];
   const withScenario = withEvents(scenario, [...feedEvents, ...doseEvents(dose), ...removalEvents, ...restockEvents]);
-  const accept = settledTankAccepts(scenario, ctx.limits);
+  const accept = settledTankAccepts(scenario, ctx.limits, 1);
   const ensembleWith = runConditionedEnsemble(withScenario, ctx.ensemble, ctx.options, accept);
   const ensembleWithout = runConditionedEnsemble(base, ctx.ensemble, ctx.options, accept);
   const withAdvice = planOutcome(ensembleWith.forecasts, ctx.limits, forecastParsed(withScenario, ctx.options));
