@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { InvitePreview } from '../../shared/schemas/club.js';
-import { conflict, notFound, unauthorized, validationFailed } from '../errors.js';
+import { conflict, forbidden, notFound, unauthorized, validationFailed } from '../errors.js';
 import { Club } from '../entities/club.js';
 import { ClubInvite } from '../entities/club-invite.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -63,7 +63,8 @@ export async function previewInvite(ds: DataSource, token: string): Promise<Invi
 }
 
 /**
- * Accepts an invite: the signed-in user joins as a member, or — signed out — a new account is
+ * Accepts an invite: the signed-in user joins as a member when the invite was sent to their
+ * address, or — signed out — a new account is
  * made for the invited address (the link proves it). The token is claimed with one conditional
  * UPDATE, so it works once even when two requests race. Returns the joining user's id.
  */
@@ -77,7 +78,14 @@ export async function acceptInvite(
   if (!preview) throw notFound(INVALID_INVITE_MESSAGE);
   let userId = signedInUserId;
   let created = false;
-  if (!userId) {
+  if (userId) {
+    // The link is bound to the address it was sent to: a forwarded link does not let someone
+    // else into the club.
+    const me = await ds.getRepository(User).findOneBy({ id: userId });
+    if (!me || me.email !== preview.email) {
+      throw forbidden('This invite was sent to another e-mail address. Sign in with that address, or ask the organizer to invite yours.');
+    }
+  } else {
     if (await ds.getRepository(User).existsBy({ email: preview.email })) throw unauthorized('An account uses this e-mail: sign in, then open the link again.');
     const fields: Record<string, string> = {};
     if (!newAccount.displayName) fields.displayName = 'Enter a name.';

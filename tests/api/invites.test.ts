@@ -81,6 +81,18 @@ describe('club invites by e-mail', () => {
     await client(ctx.app).get(`/api/invites/${token}`).expect(404);
   });
 
+  it('refuses a forwarded link: someone signed in with another address cannot join, and the invite stays usable', async () => {
+    const { club, org } = await organizerWithClub();
+    await createUser(ctx.deps.dataSource, { email: 'quinn@example.org', displayName: 'Quinn' });
+    await createUser(ctx.deps.dataSource, { email: 'rory@example.org', displayName: 'Rory' });
+    const token = await inviteByMail(org, club.id, 'quinn@example.org');
+    const rory = await signedIn('rory@example.org');
+    const refused = await rory.post(`/api/invites/${token}/accept`, {}).expect(403);
+    expect(refused.body.error.message).toMatch(/another e-mail address/);
+    await rory.get(`/api/clubs/${club.id}`).expect(404);
+    await (await signedIn('quinn@example.org')).post(`/api/invites/${token}/accept`, {}).expect(200);
+  });
+
   it('refuses an expired token and a made-up one', async () => {
     const { club, org } = await organizerWithClub();
     const token = await inviteByMail(org, club.id, 'late@example.org');
