@@ -15,7 +15,7 @@ ensure_node_modules() {
 # The exported web app is rebuilt only when a client-side source changed since the last export.
 ensure_web_export() {
   local stamp="$ROOT/dist/index.html"
-  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app components constants hooks lib assets shared simulation app.json package-lock.json -newer "$stamp" -type f 2>/dev/null | head -n 1)" ]; then
+  if [ -f "$stamp" ] && [ -z "$(cd "$ROOT" && find app components constants hooks lib assets shared simulation app.json index.ts metro.config.js public package-lock.json -newer "$stamp" -type f 2>/dev/null | head -n 1)" ]; then
     return 0
   fi
   say "building the web app (expo export, ~30 s the first time)…"

@@ -86,8 +86,19 @@ describe('account life cycle in the browser', () => {
   });
 
   it('resets a forgotten password through the e-mailed link', async () => {
-    const keeper = DEMO_PEOPLE.find((p) => p.key === 'keeper')!;
+    // A fresh account, so other test files' demo sign-ins keep their passwords.
+    const keeper = { email: `forgetful-${Date.now()}@example.org` };
     const { context, page } = await newPage(browser, 'phone');
+    await page.goto('/sign-up');
+    await page.getByTestId('sign-up-name').fill('Forgetful');
+    await page.getByTestId('sign-up-email').fill(keeper.email);
+    await page.getByTestId('sign-up-password').fill('tidal-pebble-heron-90');
+    await page.getByTestId('sign-up-submit').click();
+    await page.getByTestId('home-empty').waitFor();
+    await page.goto('/account');
+    await page.getByTestId('sign-out').click();
+    await page.getByTestId('screen-sign-in').waitFor();
+
     await page.goto('/forgot-password');
     await page.getByTestId('forgot-email').fill(keeper.email);
     await page.getByTestId('forgot-submit').click();
