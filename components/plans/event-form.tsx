@@ -53,7 +53,7 @@ export function EventForm({ editing, onSubmit, onCancel }: EventFormProps) {
               key={t.type}
               testID={`event-type-${t.type}`}
               accessibilityRole="radio"
-              accessibilityState={{ checked: type === t.type }}
+              aria-checked={type === t.type}
               onPress={() => chooseType(t.type)}
               style={{
                 minHeight: layout.minTouchTarget,

@@ -20,11 +20,11 @@ export function EventTimeline({ events, startDate, selected, onSelect, onRemove 
   const order = events.map((e, i) => ({ e, i })).sort((a, b) => a.e.day - b.e.day || a.i - b.i);
   if (events.length === 0) return <AppText tone="textMuted" testID="timeline-empty">No events yet: add the first one below.</AppText>;
   return (
-    <View testID="event-timeline" style={{ gap: space.xs }} accessibilityRole="list">
+    <View testID="event-timeline" style={{ gap: space.xs }} role="list">
       {order.map(({ e, i }) => {
         const isSelected = selected === i;
         return (
-          <View key={i} style={{ flexDirection: 'row', alignItems: 'center', gap: space.sm }}>
+          <View key={i} role="listitem" style={{ flexDirection: "row", alignItems: "center", gap: space.sm }}>
             <Pressable
               testID={`event-${i}`}
               accessibilityRole="button"

@@ -60,7 +60,7 @@ export function Button({
       {...rest}
     >
       <View style={[styles.row, { gap: space.sm }]}>
-        {busy ? <ActivityIndicator size="small" color={fg} accessibilityElementsHidden /> : null}
+        {busy ? <ActivityIndicator size="small" color={fg} accessibilityLabel="Working" /> : null}
         <AppText variant="label" weight="bold" style={{ color: fg }}>
           {busy && busyLabel ? busyLabel : label}
         </AppText>

@@ -9,7 +9,7 @@ export function Loading({ label, testID }: { label: string; testID?: string }) {
   const { colors, space } = useTheme();
   return (
     <View testID={testID} style={{ alignItems: 'center', gap: space.md, paddingVertical: space.xxl }}>
-      <ActivityIndicator size="large" color={colors.primary} accessibilityElementsHidden />
+      <ActivityIndicator size="large" color={colors.primary} accessibilityLabel={label} />
       <AppText tone="textMuted" accessibilityLiveRegion="polite">
         {label}
       </AppText>

@@ -47,7 +47,7 @@ const combos: [ViewportName, 'light' | 'dark'][] = [
 
 describe('the web app under its Content Security Policy, checked with axe', () => {
   for (const [size, scheme] of combos) {
-    it(`${size}, ${scheme}: sign-in and home pages have no CSP violations and no serious or critical axe findings`, async () => {
+    it(`${size}, ${scheme}: the main pages have no CSP violations and no serious or critical axe findings`, async () => {
       const { context, page } = await newPage(browser, size, scheme);
       try {
         const violations = await watchCsp(page);
@@ -65,6 +65,21 @@ describe('the web app under its Content Security Policy, checked with axe', () =
         await page.goto('/');
         await page.getByTestId('tank-list').waitFor();
         expect(await seriousFindings(page), 'home page').toEqual([]);
+
+        // The keeper's other main pages: a tank, a plan with its forecast chart, settings, lessons.
+        await page.locator('[data-testid^="tank-card-"][role="link"], a[data-testid^="tank-card-"]').first().click();
+        await page.getByTestId('tank-livestock').waitFor();
+        expect(await seriousFindings(page), 'tank page').toEqual([]);
+        await page.goto('/plans');
+        await page.locator('[data-testid^="plans-item-"]').first().click();
+        await page.getByTestId('forecast-chart').waitFor();
+        expect(await seriousFindings(page), 'plan page').toEqual([]);
+        await page.goto('/settings');
+        await page.getByTestId('screen-settings').waitFor();
+        expect(await seriousFindings(page), 'settings page').toEqual([]);
+        await page.goto('/lessons');
+        await page.getByTestId('screen-lessons').waitFor();
+        expect(await seriousFindings(page), 'lessons page').toEqual([]);
         expect(violations, 'CSP violations').toEqual([]);
       } finally {
         await context.close();
