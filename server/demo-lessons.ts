@@ -37,7 +37,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
     scenario: {
       name: 'All thirty on day 1',
       horizonDays: 35,
-      tank: matureTank(100, 1, 1),
+      tank: matureTank(100, 3, 2),
       start: { kind: 'mature' },
       fish: [{ species: 'neon-tetra', count: 6 }],
       events: [{ type: 'add-fish', day: 1, fish: { species: 'cherry-barb', count: 30 } }, ...weeklyChanges([7, 14, 21, 28])],
@@ -45,7 +45,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
     stagedScenario: {
       name: 'Ten a week for three weeks',
       horizonDays: 35,
-      tank: matureTank(100, 1, 1),
+      tank: matureTank(100, 3, 2),
       start: { kind: 'mature' },
       fish: [{ species: 'neon-tetra', count: 6 }],
       events: [
@@ -121,7 +121,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
     scenario: {
       name: 'Sponge rinsed under the tap on day 3',
       horizonDays: 28,
-      tank: matureTank(60, 0.6, 0.5),
+      tank: matureTank(60, 1.5, 1),
       start: { kind: 'mature' },
       fish: [
         { species: 'cherry-barb', count: 8 },
