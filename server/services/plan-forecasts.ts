@@ -38,8 +38,27 @@ export function planCautions(events: readonly ScenarioEvent[]): string[] {
 }
 
 /**
+ * Forecasts being computed in this process, by input hash: identical requests that arrive while
+ * the first is still on the engine pool wait for it instead of queueing the same work again.
+ * Losing it (a restart, another process) only costs a recomputation, so it keeps no state that
+ * scaling out would break.
+ */
+const inFlight = new Map<string, Promise<{ stored: StoredForecast; computedAt: Date }>>();
+
+function computeOnce(ds: DataSource, hash: string, scenario: Scenario): Promise<{ stored: StoredForecast; computedAt: Date }> {
+  const running = inFlight.get(hash);
+  if (running) return running;
+  const job = (async () => {
+    const { value, ms } = await runEngine<StoredForecast>({ kind: 'forecast', scenario, band: true });
+    return { stored: value, computedAt: await writeCache(ds, hash, value, ms) };
+  })().finally(() => inFlight.delete(hash));
+  inFlight.set(hash, job);
+  return job;
+}
+
+/**
  * The saved plan's forecast with its uncertainty band, from the cache when the same inputs ran
- * before (the plan's name is not an input), else from the engine pool.
+ * before (the plan's name is not an input), else from the engine pool (once per input at a time).
  */
 export async function forecastPlan(ds: DataSource, own: OwnPlan): Promise<PlanForecastResponse> {
   const { scenario, startReason } = await planScenario(ds, own);
@@ -51,9 +70,7 @@ export async function forecastPlan(ds: DataSource, own: OwnPlan): Promise<PlanFo
     stored = hit.result;
     computedAt = hit.createdAt;
   } else {
-    const { value, ms } = await runEngine<StoredForecast>({ kind: 'forecast', scenario, band: true });
-    stored = value;
-    computedAt = await writeCache(ds, hash, stored, ms);
+    ({ stored, computedAt } = await computeOnce(ds, hash, scenario));
   }
   return {
     planId: own.plan.id,

@@ -34,6 +34,17 @@ describe('POST /api/plans/:id/forecast', () => {
     await client(ctx.app).post('/api/plans/00000000-0000-4000-8000-000000000000/forecast').expect(401);
   });
 
+  it('runs the engine once for simultaneous requests of the same uncached plan', async () => {
+    const { user, c } = await keeper();
+    const { plan } = await settledTankWithPlan(user.id);
+    const before = engineTasksRun();
+    const answers = await Promise.all(Array.from({ length: 5 }, () => c.post(`/api/plans/${plan.id}/forecast`)));
+    expect(answers.map((a) => a.status)).toEqual([200, 200, 200, 200, 200]);
+    expect(engineTasksRun()).toBe(before + 1);
+    const hashes = new Set(answers.map((a) => planForecastResponseSchema.parse(a.body).inputHash));
+    expect(hashes.size).toBe(1);
+  });
+
   it('runs the saved plan on the engine pool, then answers a repeat from the cache without recomputing', async () => {
     const { user, c } = await keeper();
     const { plan } = await settledTankWithPlan(user.id);
