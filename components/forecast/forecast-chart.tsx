@@ -1,8 +1,9 @@
 import { memo, useLayoutEffect, useMemo, useState } from 'react';
 import { View, type LayoutChangeEvent } from 'react-native';
-import Svg, { G, Line, Path, Text as SvgText } from 'react-native-svg';
+import Svg, { Line, Path } from 'react-native-svg';
 import type { ColorToken } from '@/constants/theme';
 import { useTheme } from '@/hooks/use-theme';
+import { ChartGrid, ChartLimitLines } from '@/components/forecast/chart-frame';
 import { panelGeometry } from '@/lib/chart-geometry';
 import { forecastPanels, type ForecastPanel } from '@/lib/forecast-panels';
 import type { ForecastView } from '@/shared/schemas/plan';
@@ -27,12 +28,11 @@ const SERIES_STYLE: Record<string, { color: ColorToken; dash?: string }> = {
 const PANEL_HEIGHT = 150;
 
 function Panel({ panel, days, width }: { panel: ForecastPanel; days: readonly number[]; width: number }) {
-  const { colors, font } = useTheme();
+  const { colors } = useTheme();
   const g = useMemo(
     () => panelGeometry({ days, series: panel.series, limits: panel.limits, size: { width, height: PANEL_HEIGHT }, minYMax: panel.minYMax }),
     [panel, days, width],
   );
-  const fontFamily = (font.regular as { fontFamily?: string }).fontFamily;
   return (
     <View testID={`chart-panel-${panel.key}`} style={{ gap: 2 }}>
       <AppText variant="caption" weight="bold">
@@ -51,30 +51,11 @@ function Panel({ panel, days, width }: { panel: ForecastPanel; days: readonly nu
         ))}
       </View>
       <Svg width={g.width} height={g.height} aria-hidden testID={`chart-svg-${panel.key}`}>
-        {g.yTicks.map((t) => (
-          <G key={`y${t.value}`}>
-            <Line x1={g.plot.left} x2={g.plot.right} y1={t.at} y2={t.at} stroke={colors.border} strokeWidth={1} />
-            <SvgText x={g.plot.left - 4} y={t.at + 4} fontSize={11} fill={colors.textMuted} textAnchor="end" fontFamily={fontFamily}>
-              {t.label}
-            </SvgText>
-          </G>
-        ))}
-        {g.xTicks.map((t) => (
-          <SvgText key={`x${t.value}`} x={t.at} y={g.plot.bottom + 16} fontSize={11} fill={colors.textMuted} textAnchor="middle" fontFamily={fontFamily}>
-            {t.label}
-          </SvgText>
-        ))}
+        <ChartGrid g={g} />
         {g.bands.map((b) => (
           <Path key={`band-${b.key}`} d={b.d} fill={colors[SERIES_STYLE[b.key]?.color ?? 'text']} fillOpacity={0.15} stroke="none" />
         ))}
-        {g.limits.map((l) => (
-          <G key={`limit-${l.key}`}>
-            <Line x1={l.x1} x2={l.x2} y1={l.y} y2={l.y} stroke={colors.dangerText} strokeWidth={1.5} strokeDasharray="4 4" />
-            <SvgText x={l.labelX} y={l.labelY} fontSize={11} fill={colors.dangerText} textAnchor="end" fontFamily={fontFamily}>
-              {l.label}
-            </SvgText>
-          </G>
-        ))}
+        <ChartLimitLines g={g} />
         {g.lines.map((l) => (
           <Path
             key={`line-${l.key}`}

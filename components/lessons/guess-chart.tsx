@@ -1,7 +1,8 @@
 import { useMemo, useRef, useState } from 'react';
 import { PanResponder, View, type LayoutChangeEvent } from 'react-native';
-import Svg, { Circle, G, Line, Path, Text as SvgText } from 'react-native-svg';
+import Svg, { Circle, G, Line, Path } from 'react-native-svg';
 import { useTheme } from '@/hooks/use-theme';
+import { ChartGrid, ChartLimitLines } from '@/components/forecast/chart-frame';
 import { AppText } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';
 import { fromPixels, guessGeometry, toPixels } from './guess-geometry';
@@ -22,7 +23,7 @@ export interface GuessChartProps {
  * for keyboards and screen readers. After the reveal it shows the forecast and both points.
  */
 export function GuessChart({ horizonDays, limitMgN, guess, onGuess, revealed, testID = 'guess-chart' }: GuessChartProps) {
-  const { colors, font, space } = useTheme();
+  const { colors, space } = useTheme();
   const [width, setWidth] = useState(0);
   const g = useMemo(() => guessGeometry({ horizonDays, width, limitMgN, revealed }), [horizonDays, width, limitMgN, revealed]);
   const geometry = useRef(g);
@@ -44,7 +45,6 @@ export function GuessChart({ horizonDays, limitMgN, guess, onGuess, revealed, te
     [],
   );
 
-  const fontFamily = (font.regular as { fontFamily?: string }).fontFamily;
   const mark = toPixels(guess, g);
   const peak = revealed ? toPixels(revealed.peak, g) : null;
   const nudge = (dDay: number, dValue: number) =>
@@ -66,27 +66,8 @@ export function GuessChart({ horizonDays, limitMgN, guess, onGuess, revealed, te
         {width > 0 ? (
           <View pointerEvents="none">
             <Svg width={g.width} height={g.height} aria-hidden>
-              {g.yTicks.map((t) => (
-                <G key={`y${t.value}`}>
-                  <Line x1={g.plot.left} x2={g.plot.right} y1={t.at} y2={t.at} stroke={colors.border} strokeWidth={1} />
-                  <SvgText x={g.plot.left - 4} y={t.at + 4} fontSize={11} fill={colors.textMuted} textAnchor="end" fontFamily={fontFamily}>
-                    {t.label}
-                  </SvgText>
-                </G>
-              ))}
-              {g.xTicks.map((t) => (
-                <SvgText key={`x${t.value}`} x={t.at} y={g.plot.bottom + 16} fontSize={11} fill={colors.textMuted} textAnchor="middle" fontFamily={fontFamily}>
-                  {t.label}
-                </SvgText>
-              ))}
-              {g.limits.map((l) => (
-                <G key={l.key}>
-                  <Line x1={l.x1} x2={l.x2} y1={l.y} y2={l.y} stroke={colors.dangerText} strokeWidth={1.5} strokeDasharray="4 4" />
-                  <SvgText x={l.labelX} y={l.labelY} fontSize={11} fill={colors.dangerText} textAnchor="end" fontFamily={fontFamily}>
-                    {l.label}
-                  </SvgText>
-                </G>
-              ))}
+              <ChartGrid g={g} />
+              <ChartLimitLines g={g} />
               {g.lines.map((l) => (
                 <Path key={l.key} testID="guess-forecast-line" d={l.d} fill="none" stroke={colors.watchText} strokeWidth={2.5} />
               ))}

@@ -49,11 +49,11 @@ export async function listOwnPlans(ds: DataSource, ownerId: string): Promise<Own
 }
 
 /** What the scenario builder needs of a stored tank: its livestock and whether it has tests. */
-export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<ScenarioTank> {
-  const [livestock, readingCount] = await Promise.all([
-    ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
-    ds.getRepository(Reading).count({ where: { tankId: tank.id } }),
-  ]);
+/**
+ * A stored tank and its livestock as the engine's tank (shared/tank-scenario.ts). Only the
+ * number of logged tests matters to the scenario (whether the tank has a history).
+ */
+export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], readingCount: number): ScenarioTank {
   return {
     volumeL: tank.volumeL,
     temperatureC: tank.temperatureC,
@@ -64,6 +64,14 @@ export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<Scenar
     livestock: livestock.map((l) => ({ id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm })),
     readings: new Array<null>(readingCount).fill(null),
   };
+}
+
+export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<ScenarioTank> {
+  const [livestock, readingCount] = await Promise.all([
+    ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
+    ds.getRepository(Reading).count({ where: { tankId: tank.id } }),
+  ]);
+  return toScenarioTank(tank, livestock, readingCount);
 }
 
 /**

@@ -3,7 +3,7 @@ import type { Plan } from '../entities/plan.js';
 import type { Tank } from '../entities/tank.js';
 import { parseScenario, ScenarioError, type Scenario } from '../../shared/schemas/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
-import { presentLivestock } from '../presenters/tank.js';
+import { toScenarioTank } from './plans.js';
 
 /**
  * A stored plan on its stored tank as an engine scenario, built by the plans' own rule
@@ -12,19 +12,7 @@ import { presentLivestock } from '../presenters/tank.js';
  * a length).
  */
 export function scenarioFromPlan(tank: Tank, livestock: Livestock[], plan: Plan): Scenario {
-  const { scenario } = tankScenario(
-    {
-      volumeL: tank.volumeL,
-      temperatureC: tank.temperatureC,
-      ph: tank.ph,
-      khDkh: tank.khDkh,
-      tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
-      setup: tank.setup ?? {},
-      livestock: livestock.map(presentLivestock),
-      readings: [],
-    },
-    { name: plan.name, events: plan.events },
-  );
+  const { scenario } = tankScenario(toScenarioTank(tank, livestock, 0), { name: plan.name, events: plan.events });
   return parseScenario(scenario);
 }
 

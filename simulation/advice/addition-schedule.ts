@@ -29,7 +29,7 @@ import { createForecastSession, forecastParsed, type ForecastSeries, type Foreca
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { bandExplanation, memberOptions } from './ensemble';
 import { describeLimit, describeOutcome, limitByKey, whyLimitMatters } from './explain';
-import { checkAgainstEnsemble, createJudge, ensembleForecasts, judgeSeries, type UpperEdgeJudge } from './judge';
+import { checkAgainstEnsemble, createJudge, ensembleForecasts, judgementOf, judgeSeries, type Judgement, type UpperEdgeJudge } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { truncateEvents, withEvents } from './scenario-edit';
 import { ESTIMATE_CAUTIONS } from './cautions';
@@ -77,15 +77,7 @@ export interface AdditionAdvice {
   allAtOnce: PlanOutcome;
   binding: AppliedLimit;
   limits: AppliedLimit[];
-  judgement: {
-    method: 'bounding-set';
-    ensembleMembers: number;
-    seed: number;
-    boundingMembers: number[];
-    /** the bounding set's draws, so anyone can re-run them */
-    boundingDraws: { index: number; parameters: Record<string, number>; feedingMultiplier: number }[];
-    forecastsRun: number;
-  };
+  judgement: Judgement;
   explanation: string[];
   cautions: string[];
 }
@@ -361,14 +353,7 @@ export function fastestSafeSchedule(request: AdditionRequest): AdditionAdvice {
     allAtOnce,
     binding,
     limits: ctx.limits,
-    judgement: {
-      method: 'bounding-set',
-      ensembleMembers: judge.ensemble.forecasts.length,
-      seed: ctx.seed,
-      boundingMembers: judge.bounding.map((m) => m.index),
-      boundingDraws: judge.bounding.map((m) => ({ index: m.index, parameters: { ...m.parameters } as Record<string, number>, feedingMultiplier: m.feedingMultiplier })),
-      forecastsRun: judge.forecastsRun,
-    },
+    judgement: judgementOf(judge, ctx.seed),
     explanation,
     cautions: [...ESTIMATE_CAUTIONS, 'Test total ammonia and nitrite on each batch day before adding fish, and two and four days after each batch.'],
   };

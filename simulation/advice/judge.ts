@@ -119,6 +119,29 @@ export interface EdgeVerdict extends ForecastVerdict {
   forecast: Forecast;
 }
 
+/** How an advice answer was judged, with the bounding draws so anyone can re-run them. */
+export interface Judgement {
+  method: 'bounding-set';
+  ensembleMembers: number;
+  seed: number;
+  boundingMembers: number[];
+  /** the bounding set's draws, so anyone can re-run them */
+  boundingDraws: { index: number; parameters: Record<string, number>; feedingMultiplier: number }[];
+  forecastsRun: number;
+}
+
+/** The judgement record of an answer reached with `judge` (ensemble drawn with `seed`). */
+export function judgementOf(judge: UpperEdgeJudge, seed: number): Judgement {
+  return {
+    method: 'bounding-set',
+    ensembleMembers: judge.ensemble.forecasts.length,
+    seed,
+    boundingMembers: judge.bounding.map((m) => m.index),
+    boundingDraws: judge.bounding.map((m) => ({ index: m.index, parameters: { ...m.parameters } as Record<string, number>, feedingMultiplier: m.feedingMultiplier })),
+    forecastsRun: judge.forecastsRun,
+  };
+}
+
 export interface UpperEdgeJudge {
   limits: readonly AppliedLimit[];
   options: ForecastOptions;

@@ -17,7 +17,7 @@ import { adviceContext, type AdviceSettings } from './advice-context';
 import { ESTIMATE_CAUTIONS, WATER_CHANGE_CAUTIONS } from './cautions';
 import { bandExplanation } from './ensemble';
 import { describeLimit, describeOutcome, limitByKey, whyLimitMatters } from './explain';
-import { checkAgainstEnsemble, createJudge, type UpperEdgeJudge } from './judge';
+import { checkAgainstEnsemble, createJudge, judgementOf, type Judgement, type UpperEdgeJudge } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { withEvents } from './scenario-edit';
 import { formatValue, type AppliedLimit } from './tank-limits';
@@ -47,14 +47,7 @@ export interface RescueAdvice {
   withChanges: PlanOutcome | null;
   binding: AppliedLimit;
   limits: AppliedLimit[];
-  judgement: {
-    method: 'bounding-set';
-    ensembleMembers: number;
-    seed: number;
-    boundingMembers: number[];
-    boundingDraws: { index: number; parameters: Record<string, number>; feedingMultiplier: number }[];
-    forecastsRun: number;
-  };
+  judgement: Judgement;
   explanation: string[];
   cautions: string[];
 }
@@ -188,14 +181,7 @@ export function rescueWaterChanges(request: RescueRequest): RescueAdvice {
     withChanges,
     binding,
     limits: ctx.limits,
-    judgement: {
-      method: 'bounding-set',
-      ensembleMembers: judge.ensemble.forecasts.length,
-      seed: ctx.seed,
-      boundingMembers: judge.bounding.map((m) => m.index),
-      boundingDraws: judge.bounding.map((m) => ({ index: m.index, parameters: { ...m.parameters } as Record<string, number>, feedingMultiplier: m.feedingMultiplier })),
-      forecastsRun: judge.forecastsRun,
-    },
+    judgement: judgementOf(judge, ctx.seed),
     explanation,
     cautions: [...ESTIMATE_CAUTIONS, ...WATER_CHANGE_CAUTIONS],
   };
