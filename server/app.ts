@@ -33,6 +33,8 @@ export function createApp(
   const { config, logger } = deps;
   const app = express();
   app.disable('x-powered-by');
+  // API answers are `no-store`, so a body hash per answer buys nothing (static files keep theirs).
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxy);
 
   app.use(

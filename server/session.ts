@@ -22,7 +22,29 @@ export const SESSION_COOKIE_NAME = 'shoalshift.sid';
  */
 export function createSessionMiddleware(config: Config, pool: Pool, logger: Logger) {
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  // Moving the expiry by less than a tenth of the idle timeout (at most a minute) changes
+  // nothing a keeper would notice, so most requests skip the write.
+  const touchStepSeconds = Math.min(60, config.session.idleSeconds / 10);
+  /**
+   * express-session holds every answer until the store's touch returns. Here the touch is
+   * answered at once and the row's expiry moves in the background, and only when it has moved
+   * by more than the step. A lost touch can only make a session end earlier, never later.
+   */
+  class SessionStore extends PgStore {
+    override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
+      const expires = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : Date.now() + config.session.idleSeconds * 1000;
+      const expireSeconds = Math.ceil(expires / 1000);
+      pool
+        .query(`UPDATE session SET expire = to_timestamp($1) WHERE sid = $2 AND expire < to_timestamp($1) - make_interval(secs => $3)`, [
+          expireSeconds,
+          sid,
+          touchStepSeconds,
+        ])
+        .catch((err: unknown) => logger.log('warn', 'session.touch_failed', { error: String(err) }));
+      fn?.();
+    }
+  }
+  const store = new SessionStore({
     pool,
     tableName: 'session',
     createTableIfMissing: false,

@@ -6,7 +6,8 @@ import { notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { presentPlanDetail } from '../presenters/plan.js';
-import { createPlan, deletePlan, findOwnPlan, findOwnTank, listOwnPlans, listTankPlans, updatePlan, type OwnPlan } from '../services/plans.js';
+import { createPlan, deletePlan, findOwnPlan, listOwnPlans, listTankPlans, updatePlan, type OwnPlan } from '../services/plans.js';
+import { findOwnTank } from '../services/tanks.js';
 import type { DataSource } from 'typeorm';
 import type { Tank } from '../entities/tank.js';
 

@@ -14,17 +14,13 @@ export interface OwnPlan {
   tank: Tank;
 }
 
-/** The tank only when `ownerId` owns it. */
-export async function findOwnTank(ds: DataSource, ownerId: string, tankId: string): Promise<Tank | null> {
-  return ds.getRepository(Tank).findOneBy({ id: tankId, ownerId });
-}
-
 /** The plan only when its tank belongs to `ownerId`. */
 export async function findOwnPlan(ds: DataSource, ownerId: string, planId: string): Promise<OwnPlan | null> {
-  const plan = await ds.getRepository(Plan).findOneBy({ id: planId });
-  if (!plan) return null;
-  const tank = await findOwnTank(ds, ownerId, plan.tankId);
-  return tank ? { plan, tank } : null;
+  // One query: the plan with its tank, only when the tank is the keeper's.
+  const found = await ds.getRepository(Plan).findOne({ where: { id: planId, tank: { ownerId } }, relations: { tank: true } });
+  if (!found?.tank) return null;
+  const { tank, ...fields } = found;
+  return { plan: Object.assign(new Plan(), fields), tank };
 }
 
 export async function listTankPlans(ds: DataSource, tank: Tank): Promise<OwnPlan[]> {
@@ -53,7 +49,8 @@ export async function listOwnPlans(ds: DataSource, ownerId: string): Promise<Own
  * A stored tank and its livestock as the engine's tank (shared/tank-scenario.ts). Only the
  * number of logged tests matters to the scenario (whether the tank has a history).
  */
-export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], readingCount: number): ScenarioTank {
+/** `hasReadings`: whether the tank has any logged test (all the start rule asks of them). */
+export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasReadings: boolean): ScenarioTank {
   return {
     volumeL: tank.volumeL,
     temperatureC: tank.temperatureC,
@@ -62,16 +59,17 @@ export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], read
     tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
     setup: tank.setup ?? {},
     livestock: livestock.map((l) => ({ id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm })),
-    readings: new Array<null>(readingCount).fill(null),
+    readings: hasReadings ? [null] : [],
   };
 }
 
 export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<ScenarioTank> {
-  const [livestock, readingCount] = await Promise.all([
+  const [livestock, hasReadings] = await Promise.all([
     ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
-    ds.getRepository(Reading).count({ where: { tankId: tank.id } }),
+    // Not a count: a tank's log grows for years, and only "any at all" matters here.
+    ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
   ]);
-  return toScenarioTank(tank, livestock, readingCount);
+  return toScenarioTank(tank, livestock, hasReadings);
 }
 
 /**

@@ -12,7 +12,7 @@ import { toScenarioTank } from './plans.js';
  * a length).
  */
 export function scenarioFromPlan(tank: Tank, livestock: Livestock[], plan: Plan): Scenario {
-  const { scenario } = tankScenario(toScenarioTank(tank, livestock, 0), { name: plan.name, events: plan.events });
+  const { scenario } = tankScenario(toScenarioTank(tank, livestock, false), { name: plan.name, events: plan.events });
   return parseScenario(scenario);
 }
 

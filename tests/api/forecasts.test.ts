@@ -1,5 +1,6 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest';
 import { planForecastResponseSchema } from '../../shared/schemas/plan.js';
+import { forgetRememberedResults } from '../../server/services/forecast-cache.js';
 import { closeEnginePool, engineTasksRun } from '../../server/workers/engine-pool.js';
 import { GOOD_PASSWORD, createLivestock, createPlan, createTank, createUser } from './helpers/factories.js';
 import { client, useTestApp } from './helpers/test-app.js';
@@ -8,6 +9,7 @@ const ctx = useTestApp();
 
 beforeEach(async () => {
   await ctx.deps.dataSource.query('TRUNCATE forecast_cache');
+  forgetRememberedResults();
 });
 afterAll(async () => {
   await closeEnginePool();
@@ -70,6 +72,30 @@ describe('POST /api/plans/:id/forecast', () => {
     expect(second.forecast).toEqual(first.forecast);
     const rows = await ctx.deps.dataSource.query('SELECT count(*)::int AS n FROM forecast_cache');
     expect(rows[0].n).toBe(1);
+  });
+
+  it('answers from the shared table when this process has not seen the inputs (as another process would), without rewriting the row on each hit', async () => {
+    const { user, c } = await keeper();
+    const { plan } = await settledTankWithPlan(user.id);
+    const ds = ctx.deps.dataSource;
+    const first = (await c.post(`/api/plans/${plan.id}/forecast`).expect(200)).body;
+    const before = engineTasksRun();
+    const [{ used: usedBefore }] = await ds.query('SELECT last_used_at AS used FROM forecast_cache');
+    forgetRememberedResults();
+    const second = planForecastResponseSchema.parse((await c.post(`/api/plans/${plan.id}/forecast`).expect(200)).body);
+    expect(second).toMatchObject({ cached: true, inputHash: first.inputHash });
+    expect(engineTasksRun()).toBe(before);
+    await c.post(`/api/plans/${plan.id}/forecast`).expect(200);
+    // Used within the day: the pruning date is not rewritten (a write per hit queued readers on the row).
+    const [{ used: usedAfter }] = await ds.query('SELECT last_used_at AS used FROM forecast_cache');
+    expect(new Date(usedAfter).getTime()).toBe(new Date(usedBefore).getTime());
+    // A row last used over a day ago is moved forward by the next read from the table.
+    await ds.query(`UPDATE forecast_cache SET last_used_at = now() - interval '3 days'`);
+    forgetRememberedResults();
+    await c.post(`/api/plans/${plan.id}/forecast`).expect(200);
+    await expect
+      .poll(async () => (await ds.query(`SELECT last_used_at > now() - interval '1 hour' AS fresh FROM forecast_cache`))[0].fresh)
+      .toBe(true);
   });
 
   it('recomputes after the plan changes, and shares the cache between plans with the same inputs', async () => {
