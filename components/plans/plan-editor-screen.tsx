@@ -16,6 +16,7 @@ import { isApiRequestError } from '@/lib/api-client';
 import { basisWords } from '@/lib/units-format';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
+import { ShareLinkPanel } from '@/components/share/share-link-panel';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
@@ -216,6 +217,8 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       </Card>
   );
   const cautions = <CautionsList extra={shownFromServer ? server.data!.cautions : []} testID="plan-cautions" />;
+  // A link shows the saved plan (not unsaved changes) to someone without an account.
+  const shareCard = <ShareLinkPanel itemType="plan" itemId={planId} />;
 
   // Wide: the plan beside its forecast. Phone: the forecast first, then the plan, then advice.
   return size === 'wide' ? (
@@ -229,6 +232,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         {forecastCard}
         {adviceCard}
         {cautions}
+        {shareCard}
       </View>
     </View>
   ) : (
@@ -239,6 +243,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       {planColumn}
       {adviceCard}
       {cautions}
+      {shareCard}
     </View>
   );
 }
