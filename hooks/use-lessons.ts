@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { lessonKeys } from '@/lib/query-keys';
-import { lessonDetailSchema, lessonListSchema } from '@/shared/schemas/lesson';
+import { lessonDetailSchema, lessonListSchema, type CreateLessonInput } from '@/shared/schemas/lesson';
 import { createdShareLinkSchema, shareLinkListSchema, sharedViewSchema, type ShareableType } from '@/shared/schemas/share';
 
 /** Lessons change only when a mentor edits them. */
@@ -17,6 +17,19 @@ export function useLesson(id: string) {
     queryFn: ({ signal }) => apiRequest(`/api/lessons/${encodeURIComponent(id)}`, { schema: lessonDetailSchema, signal }),
     staleTime: LESSON_STALE_MS,
     enabled: id.length > 0,
+  });
+}
+
+/** A mentor or organizer creates a lesson in their club (POST /api/clubs/:clubId/lessons). */
+export function useCreateLesson() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ clubId, input }: { clubId: string; input: CreateLessonInput }) =>
+      apiRequest(`/api/clubs/${encodeURIComponent(clubId)}/lessons`, { method: 'POST', body: input, schema: lessonDetailSchema }),
+    onSuccess: (lesson) => {
+      qc.setQueryData(lessonKeys.detail(lesson.id), lesson);
+      void qc.invalidateQueries({ queryKey: lessonKeys.list() });
+    },
   });
 }
 

@@ -13,10 +13,12 @@ export interface EventFormProps {
   editing: ScenarioEvent | null;
   onSubmit(event: ScenarioEvent): void;
   onCancel?(): void;
+  /** Help under the day field when "the plan start" is not the right words (a lesson's day 0). */
+  dayHint?: string;
 }
 
 /** Add or edit one event: pick its kind, fill in a few numbers; errors appear under each field. */
-export function EventForm({ editing, onSubmit, onCancel }: EventFormProps) {
+export function EventForm({ editing, onSubmit, onCancel, dayHint }: EventFormProps) {
   const { space, colors, radii, layout } = useTheme();
   const [type, setType] = useState<EventType>(editing?.type ?? 'add-fish');
   const [fields, setFields] = useState<EventFields>(editing ? eventToFields(editing) : blankFields('add-fish'));
@@ -74,7 +76,7 @@ export function EventForm({ editing, onSubmit, onCancel }: EventFormProps) {
         <View key={spec.key} style={{ gap: space.xs }}>
           <TextField
             label={spec.label}
-            hint={spec.hint}
+            hint={spec.key === 'day' && dayHint ? dayHint : spec.hint}
             value={fields[spec.key] ?? ''}
             onChangeText={(v) => setFields((f) => ({ ...f, [spec.key]: v }))}
             keyboardType={spec.numeric ? 'decimal-pad' : 'default'}

@@ -8,7 +8,8 @@ import { describeEvent } from '@/components/plans/event-fields';
 
 export interface EventTimelineProps {
   events: readonly ScenarioEvent[];
-  startDate: string;
+  /** The plan's first day; a lesson has none, so its events show the day number only. */
+  startDate?: string;
   selected: number | null;
   onSelect(index: number | null): void;
   onRemove(index: number): void;
@@ -46,7 +47,7 @@ export function EventTimeline({ events, startDate, selected, onSelect, onRemove 
             >
               <View style={{ minWidth: 64 }}>
                 <AppText weight="bold">{`Day ${e.day}`}</AppText>
-                <AppText variant="caption" tone="textMuted">{addDays(startDate, e.day)}</AppText>
+                {startDate ? <AppText variant="caption" tone="textMuted">{addDays(startDate, e.day)}</AppText> : null}
               </View>
               <AppText style={{ flex: 1 }}>{describeEvent(e)}</AppText>
             </Pressable>
