@@ -9,6 +9,7 @@ import {
   commentSchema,
   invitePreviewSchema,
   inviteSchema,
+  pendingInviteListSchema,
   sharedItemDetailSchema,
 } from '@/shared/schemas/club';
 
@@ -55,8 +56,29 @@ export function useCreateClub() {
 }
 
 export function useInvite(clubId: string) {
+  const qc = useQueryClient();
   return useMutation({
     mutationFn: (email: string) => apiRequest(`/api/clubs/${encodeURIComponent(clubId)}/invites`, { method: 'POST', body: { email }, schema: inviteSchema }),
+    onSuccess: () => qc.invalidateQueries({ queryKey: clubKeys.invites(clubId) }),
+  });
+}
+
+/** Invites of the club not answered yet (organizers only; others get 403, so pass `enabled`). */
+export function usePendingInvites(clubId: string, enabled: boolean) {
+  return useQuery({
+    queryKey: clubKeys.invites(clubId),
+    queryFn: ({ signal }) => apiRequest(`/api/clubs/${encodeURIComponent(clubId)}/invites`, { schema: pendingInviteListSchema, signal }),
+    staleTime: CLUB_STALE_MS,
+    enabled: enabled && clubId.length > 0,
+  });
+}
+
+/** Takes back a pending invite; the list refreshes either way (a 404 means it was already gone). */
+export function useRevokeInvite(clubId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (inviteId: string) => apiRequest(`/api/clubs/${encodeURIComponent(clubId)}/invites/${encodeURIComponent(inviteId)}`, { method: 'DELETE' }),
+    onSettled: () => qc.invalidateQueries({ queryKey: clubKeys.invites(clubId) }),
   });
 }
 

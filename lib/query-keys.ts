@@ -38,6 +38,8 @@ export const clubKeys = {
   shares: (id: string) => [...clubKeys.all, 'shares', id] as const,
   share: (clubId: string, shareId: string) => [...clubKeys.all, 'share', clubId, shareId] as const,
   invite: (token: string) => [...clubKeys.all, 'invite', token] as const,
+  /** A club's invites waiting for an answer (organizers). */
+  invites: (clubId: string) => [...clubKeys.all, 'invites', clubId] as const,
 };
 
 export const lessonKeys = {

@@ -1,14 +1,15 @@
 import { View } from 'react-native';
 import { router } from 'expo-router';
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import { createInviteSchema, clubShareSchema, type ClubDetail } from '@/shared/schemas/club';
-import { useClub, useClubShares, useInvite, useLeaveClub, useRemoveMember, useSetRole } from '@/hooks/use-clubs';
+import { createInviteSchema, clubShareSchema, type ClubDetail, type PendingInvite } from '@/shared/schemas/club';
+import { useClub, useClubShares, useInvite, useLeaveClub, usePendingInvites, useRemoveMember, useRevokeInvite, useSetRole } from '@/hooks/use-clubs';
 import { useTankList } from '@/hooks/use-tanks';
 import { useFormState } from '@/hooks/use-form-state';
 import { useTheme } from '@/hooks/use-theme';
 import { apiRequest, isApiRequestError } from '@/lib/api-client';
 import { clubKeys } from '@/lib/query-keys';
 import { formErrorsFromRequest, NO_FORM_ERRORS, validateForm } from '@/lib/form-errors';
+import { relativeDayLabel, shortDate } from '@/lib/format';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { Button } from '@/components/ui/button';
@@ -49,6 +50,7 @@ function ClubBody({ club }: { club: ClubDetail }) {
         <Heading testID="club-name">{club.name}</Heading>
         <AppText tone="textMuted">{`You are ${ROLE_LABEL[club.myRole].toLowerCase()} here.`}</AppText>
         <TextLink href="/lessons" label="Lessons →" testID="club-lessons" />
+        {club.myRole !== 'member' ? <TextLink href={`/lessons/new?club=${club.id}`} label="+ New lesson for this club" testID="club-new-lesson" /> : null}
       </View>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.lg }}>
         <View style={{ flexGrow: 1, flexBasis: 320, gap: space.lg }}>
@@ -118,7 +120,44 @@ function InviteCard({ clubId }: { clubId: string }) {
         onSubmitEditing={submit}
       />
       <Button label="Send invite" onPress={submit} busy={invite.isPending} testID="club-invite-submit" />
+      <PendingInvites clubId={clubId} onRevoked={(email) => invite.data?.email === email && invite.reset()} />
     </Card>
+  );
+}
+
+/** Invites sent but not answered yet, each with a way to take it back before it is used. */
+function PendingInvites({ clubId, onRevoked }: { clubId: string; onRevoked: (email: string) => void }) {
+  const { space, colors } = useTheme();
+  const pending = usePendingInvites(clubId, true);
+  const revoke = useRevokeInvite(clubId);
+  const now = new Date();
+  const take = (i: PendingInvite) => revoke.mutate(i.id, { onSuccess: () => onRevoked(i.email) });
+  return (
+    <View testID="club-pending-invites" style={{ gap: space.sm, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.md }}>
+      <Heading level={3}>Not answered yet</Heading>
+      {pending.isError ? (
+        <LoadError title="Could not load the open invites" error={pending.error} onRetry={() => void pending.refetch()} retrying={pending.isFetching} />
+      ) : null}
+      {revoke.error ? <Banner tone="watch" title="Not revoked" message={revoke.error.message} testID="club-invite-revoke-error" /> : null}
+      {pending.data?.invites.length === 0 ? <AppText tone="textMuted">No open invites.</AppText> : null}
+      {pending.data?.invites.map((i) => (
+        <View key={i.id} testID="club-pending-invite" style={{ flexDirection: 'row', flexWrap: 'wrap', alignItems: 'center', justifyContent: 'space-between', gap: space.sm }}>
+          <View style={{ flexShrink: 1, flexGrow: 1, flexBasis: 180, gap: space.xxs }}>
+            <AppText weight="bold" testID="club-pending-invite-email">{i.email}</AppText>
+            <AppText variant="caption" tone="textMuted">{`Link works until ${shortDate(i.expiresAt)} (${relativeDayLabel(i.expiresAt, now)}) · sent by ${i.invitedBy}`}</AppText>
+          </View>
+          <Button
+            variant="secondary"
+            label="Revoke"
+            accessibilityLabel={`Revoke the invite to ${i.email}`}
+            busy={revoke.isPending && revoke.variables === i.id}
+            busyLabel="Revoking…"
+            onPress={() => take(i)}
+            testID="club-pending-invite-revoke"
+          />
+        </View>
+      ))}
+    </View>
   );
 }
 

@@ -24,6 +24,10 @@ export class ClubInvite {
   @Column({ type: 'timestamptz', name: 'used_at', nullable: true })
   usedAt: Date | null;
 
+  /** Set when an organizer takes the invite back; the link is then refused like a used one. */
+  @Column({ type: 'timestamptz', name: 'revoked_at', nullable: true })
+  revokedAt: Date | null;
+
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;
 }

@@ -7,7 +7,7 @@ import { validateBody, validBody } from '../middleware/validate.js';
 import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
 import { listComments, listShares, loadSharedItem, shareItem, unshare, visibleShare } from '../services/club-shares.js';
 import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRole, setMemberRole } from '../services/clubs.js';
-import { createInvite } from '../services/invites.js';
+import { createInvite, listPendingInvites, revokeInvite } from '../services/invites.js';
 import { scenarioFromPlanOrNull } from '../services/scenario-from-plan.js';
 import { getOwnTank } from '../services/tanks.js';
 import { idParam } from './club-params.js';
@@ -49,6 +49,20 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
     });
     background.run('club-invite-mail', send);
     res.status(201).json({ id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() });
+  });
+
+  router.get('/:clubId/invites', auth, async (req, res) => {
+    const membership = await member(req, ['organizer']);
+    res.json({ invites: await listPendingInvites(ds, membership.clubId) });
+  });
+
+  // Only a pending invite can be revoked: revoking it again answers 404 (see revokeInvite).
+  router.delete('/:clubId/invites/:inviteId', auth, async (req, res) => {
+    const membership = await member(req, ['organizer']);
+    const inviteId = idParam(req, 'inviteId', 'invite');
+    await revokeInvite(ds, membership.clubId, inviteId);
+    logger.log('info', 'clubs.invite_revoked', { clubId: membership.clubId, inviteId, userId: membership.userId });
+    res.status(204).end();
   });
 
   router.put('/:clubId/members/:userId', auth, validateBody(memberRoleSchema), async (req, res) => {

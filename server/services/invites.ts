@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { InvitePreview } from '../../shared/schemas/club.js';
+import type { InvitePreview, PendingInvite } from '../../shared/schemas/club.js';
 import { conflict, forbidden, notFound, unauthorized, validationFailed } from '../errors.js';
 import { Club } from '../entities/club.js';
 import { ClubInvite } from '../entities/club-invite.js';
@@ -34,6 +34,7 @@ export async function createInvite(
       invitedBy: input.inviter.id,
       expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
       usedAt: null,
+      revokedAt: null,
     }),
   );
   const link = `${appUrl}/invite/${encodeURIComponent(token)}`;
@@ -43,11 +44,45 @@ export async function createInvite(
 
 async function liveInvite(ds: DataSource, token: string): Promise<ClubInvite | null> {
   const invite = await ds.getRepository(ClubInvite).findOneBy({ tokenHash: sha256Hex(token) });
-  if (!invite || invite.usedAt || invite.expiresAt.getTime() <= Date.now()) return null;
+  if (!invite || invite.usedAt || invite.revokedAt || invite.expiresAt.getTime() <= Date.now()) return null;
   return invite;
 }
 
-/** What the link holder sees before accepting; 404 for an unknown, used or expired token. */
+/** A club's invites still waiting for an answer (not accepted, expired or revoked), newest first. */
+export async function listPendingInvites(ds: DataSource, clubId: string): Promise<PendingInvite[]> {
+  const rows: { id: string; email: string; invited_by: string | null; created_at: Date; expires_at: Date }[] = await ds.query(
+    `SELECT i.id, i.email, u.display_name AS invited_by, i.created_at, i.expires_at
+       FROM club_invites i LEFT JOIN users u ON u.id = i.invited_by
+      WHERE i.club_id = $1 AND i.used_at IS NULL AND i.revoked_at IS NULL AND i.expires_at > now()
+      ORDER BY i.created_at DESC, i.id`,
+    [clubId],
+  );
+  return rows.map((r) => ({
+    id: r.id,
+    email: r.email,
+    invitedBy: r.invited_by ?? 'An organizer',
+    createdAt: new Date(r.created_at).toISOString(),
+    expiresAt: new Date(r.expires_at).toISOString(),
+  }));
+}
+
+/**
+ * Takes back a pending invite of the club. Only a pending one can be revoked: another club's,
+ * an accepted, an expired or an already revoked invite is 404 (so revoking twice is 404). One
+ * conditional UPDATE, so a revoke racing an accept lets exactly one of them win.
+ */
+export async function revokeInvite(ds: DataSource, clubId: string, inviteId: string): Promise<void> {
+  const result: unknown[] = await ds.query(
+    `UPDATE club_invites SET revoked_at = now()
+      WHERE id = $1 AND club_id = $2 AND used_at IS NULL AND revoked_at IS NULL AND expires_at > now()
+      RETURNING id`,
+    [inviteId, clubId],
+  );
+  const rows = (Array.isArray(result[0]) ? result[0] : result) as { id: string }[];
+  if (rows.length === 0) throw notFound('No such invite: it was answered, has expired, or was taken back already.');
+}
+
+/** What the link holder sees before accepting; 404 for an unknown, used, expired or revoked token. */
 export async function previewInvite(ds: DataSource, token: string): Promise<InvitePreview> {
   const invite = await liveInvite(ds, token);
   if (!invite) throw notFound(INVALID_INVITE_MESSAGE);
@@ -98,7 +133,7 @@ export async function acceptInvite(
   const joiningUserId = userId;
   const clubId = await ds.transaction(async (tx) => {
     const claimed: unknown[] = await tx.query(
-      `UPDATE club_invites SET used_at = now() WHERE token_hash = $1 AND used_at IS NULL AND expires_at > now() RETURNING club_id`,
+      `UPDATE club_invites SET used_at = now() WHERE token_hash = $1 AND used_at IS NULL AND revoked_at IS NULL AND expires_at > now() RETURNING club_id`,
       [sha256Hex(token)],
     );
     const rows = (Array.isArray(claimed[0]) ? claimed[0] : claimed) as { club_id: string }[];

@@ -37,6 +37,21 @@ export const createInviteSchema = z.strictObject({
 export const inviteSchema = z.object({ id: z.string().uuid(), email: z.string(), expiresAt: z.string() });
 export type InviteItem = z.infer<typeof inviteSchema>;
 
+/**
+ * GET /api/clubs/:clubId/invites — organizers only: invites still waiting for an answer (not
+ * accepted, not expired, not revoked), newest first. Never carries the token or its hash.
+ */
+export const pendingInviteSchema = z.object({
+  id: z.string().uuid(),
+  email: z.string(),
+  /** Display name of the organizer who sent it. */
+  invitedBy: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+});
+export type PendingInvite = z.infer<typeof pendingInviteSchema>;
+export const pendingInviteListSchema = z.object({ invites: z.array(pendingInviteSchema) });
+
 /** GET /api/invites/:token — what the person holding an invite link sees before accepting. */
 export const invitePreviewSchema = z.object({
   clubName: z.string(),

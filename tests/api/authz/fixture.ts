@@ -49,6 +49,8 @@ export interface Fixture {
     shareLinkToken: string;
     /** A live invite to club A for an address with no account. */
     inviteToken: string;
+    /** That invite's id (organizer A lists and revokes it). */
+    invite: string;
     /** The member's unsubscribe token (HMAC of the user id). */
     unsubscribeToken: string;
   };
@@ -144,7 +146,7 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
     ds.getRepository(ShareLink).create({ tokenHash: sha256Hex(shareLinkToken), itemType: 'plan', itemId: m.plan, createdBy: member.id, expiresAt: null, revokedAt: null }),
   );
   const inviteToken = newLinkToken();
-  await ds.getRepository(ClubInvite).save(
+  const invite = await ds.getRepository(ClubInvite).save(
     ds.getRepository(ClubInvite).create({
       clubId: clubA.id,
       email: 'invitee@example.org',
@@ -180,7 +182,8 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
   // Club A's objects are seen by club A's people only; the lesson and share by its members.
   for (const a of ['member', 'mentor', 'organizerA'] as Actor[]) owned[a].push(lesson.id, planShare.id, comment.id);
   owned.member.push(shareLink.id);
-  const allObjects = [...Object.values(m), ...Object.values(k), ...Object.values(b), lesson.id, planShare.id, comment.id, shareLink.id];
+  owned.organizerA.push(invite.id);
+  const allObjects = [...Object.values(m), ...Object.values(k), ...Object.values(b), lesson.id, planShare.id, comment.id, shareLink.id, invite.id];
   return {
     users: Object.fromEntries(Object.entries(users).map(([k2, u]) => [k2, { id: u.id, email: u.email }])) as Fixture['users'],
     clubA: clubA.id,
@@ -202,6 +205,7 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
       shareLink: shareLink.id,
       shareLinkToken,
       inviteToken,
+      invite: invite.id,
       unsubscribeToken: signPayload(secret, UNSUBSCRIBE_PURPOSE, member.id),
     },
     scenario: EXAMPLE_SCENARIO,

@@ -172,6 +172,15 @@ export const MATRIX: Record<string, MatrixRow> = {
     request: (fx) => ({ path: `/api/clubs/${fx.clubA}/invites`, body: { email: 'new.person@example.org' } }),
     expect: clubA(['organizerA']),
   },
+  // Pending invites: organizers of club A only (the list carries its invite's id and address).
+  'GET /api/clubs/:clubId/invites': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubA}/invites` }),
+    expect: clubA(['organizerA']),
+  },
+  'DELETE /api/clubs/:clubId/invites/:inviteId': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubA}/invites/${fx.extra.invite}` }),
+    expect: clubA(['organizerA']),
+  },
   'PUT /api/clubs/:clubId/members/:userId': {
     request: (fx) => ({ path: `/api/clubs/${fx.clubA}/members/${fx.users.member.id}`, body: { role: 'mentor' } }),
     expect: clubA(['organizerA']),
