@@ -30,6 +30,12 @@ const envSchema = z
     TRUST_PROXY: z.string().min(1).default('loopback'),
     /** Background jobs (reminders, alerts) in this process: on, or off (tests that do not need them). */
     JOBS: z.enum(['on', 'off']).default('on'),
+    /**
+     * Attempt limits on the expensive anonymous auth routes (server/services/attempt-limiter.ts):
+     * on, or off for API tests that sign up many accounts from one loopback address. Never off
+     * in production.
+     */
+    AUTH_ATTEMPT_LIMITS: z.enum(['on', 'off']).default('on'),
   })
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
@@ -38,6 +44,7 @@ const envSchema = z
     if (!env.SESSION_SECRET) ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production' });
     if (!env.APP_URL) ctx.addIssue({ code: 'custom', path: ['APP_URL'], message: 'is required in production' });
     if (env.MAIL_FAKE_URL) ctx.addIssue({ code: 'custom', path: ['MAIL_FAKE_URL'], message: 'must not be set in production' });
+    if (env.AUTH_ATTEMPT_LIMITS === 'off') ctx.addIssue({ code: 'custom', path: ['AUTH_ATTEMPT_LIMITS'], message: 'must be on in production' });
   });
 
 export interface Config {
@@ -52,6 +59,8 @@ export interface Config {
   staticDir: string;
   trustProxy: string | number | boolean;
   jobsEnabled: boolean;
+  /** Attempt limits on sign-up, password reset, forgot-password and invite accept. */
+  attemptLimitsEnabled: boolean;
 }
 
 export class ConfigError extends Error {
@@ -101,5 +110,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     staticDir: path.resolve(e.STATIC_DIR),
     trustProxy: parseTrustProxy(e.TRUST_PROXY),
     jobsEnabled: e.JOBS === 'on',
+    attemptLimitsEnabled: e.AUTH_ATTEMPT_LIMITS === 'on',
   };
 }

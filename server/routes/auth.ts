@@ -6,15 +6,21 @@ import { clientAddress } from '../middleware/client-address.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { presentMe } from '../presenters/me.js';
 import { authenticate, listMemberships, signUp } from '../services/accounts.js';
+import { enforceAttemptLimit } from '../services/attempt-limiter.js';
 import { resetPassword, sendPasswordReset } from '../services/password-reset.js';
 import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from '../services/sign-in-limiter.js';
 import { SESSION_COOKIE_NAME, destroySession, startUserSession } from '../session.js';
 
 export function authRouter({ dataSource: ds, config, mailer, logger, background }: AppDeps): Router {
   const router = Router();
+  const limits = { dataSource: ds, config, logger };
 
+  // Sign-up, forgot-password and reset-password go through the attempt limiter before any
+  // bcrypt hash or e-mail (server/services/attempt-limiter.ts).
   router.post('/sign-up', validateBody(signUpSchema), async (req, res) => {
-    const user = await signUp(ds, validBody(req, signUpSchema));
+    const input = validBody(req, signUpSchema);
+    await enforceAttemptLimit(limits, 'sign-up', { address: clientAddress(req) });
+    const user = await signUp(ds, input);
     await startUserSession(req, user.id);
     logger.log('info', 'auth.sign_up', { userId: user.id });
     res.status(201).json(presentMe(user, []));
@@ -47,8 +53,11 @@ export function authRouter({ dataSource: ds, config, mailer, logger, background 
     res.status(204).end();
   });
 
-  router.post('/forgot-password', validateBody(forgotPasswordSchema), (req, res) => {
+  router.post('/forgot-password', validateBody(forgotPasswordSchema), async (req, res) => {
     const { email } = validBody(req, forgotPasswordSchema);
+    // Counted per address and per target e-mail whether or not an account has it, so a 429
+    // says nothing about which e-mails have accounts.
+    await enforceAttemptLimit(limits, 'forgot-password', { address: clientAddress(req), email });
     // The work runs after the answer, so neither the answer nor its timing tells whether an
     // account has this e-mail.
     background.run('password-reset-mail', () => sendPasswordReset(ds, mailer, config.appUrl, email));
@@ -57,6 +66,7 @@ export function authRouter({ dataSource: ds, config, mailer, logger, background 
 
   router.post('/reset-password', validateBody(resetPasswordSchema), async (req, res) => {
     const { token, password } = validBody(req, resetPasswordSchema);
+    await enforceAttemptLimit(limits, 'reset-password', { address: clientAddress(req) });
     await resetPassword(ds, token, password);
     logger.log('info', 'auth.password_reset', {});
     // This browser's own session (if any) ended with all others: clear its cookie too.

@@ -2,8 +2,10 @@ import { Router } from 'express';
 import { acceptInviteSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
 import { notFound } from '../errors.js';
+import { clientAddress } from '../middleware/client-address.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { User } from '../entities/user.js';
+import { enforceAttemptLimit } from '../services/attempt-limiter.js';
 import { acceptInvite, INVALID_INVITE_MESSAGE, previewInvite } from '../services/invites.js';
 import { startUserSession } from '../session.js';
 
@@ -23,6 +25,7 @@ export function invitesRouter({ dataSource: ds, config, logger }: AppDeps): Rout
   });
 
   router.post('/:token/accept', validateBody(acceptInviteSchema), async (req, res) => {
+    const inviteToken = token(req.params.token);
     // A live session counts as signed in (same rules as requireAuth: the password not changed since).
     let signedIn: string | null = null;
     const { userId, createdAt } = req.session ?? {};
@@ -30,7 +33,10 @@ export function invitesRouter({ dataSource: ds, config, logger }: AppDeps): Rout
       const user = await ds.getRepository(User).findOneBy({ id: userId });
       if (user && user.passwordChangedAt.getTime() <= createdAt) signedIn = user.id;
     }
-    const result = await acceptInvite(ds, token(req.params.token), signedIn, validBody(req, acceptInviteSchema));
+    // Signed out, accepting may create an account (a bcrypt hash): limited per address before
+    // any work. A signed-in keeper's accept hashes nothing and is not counted.
+    if (!signedIn) await enforceAttemptLimit({ dataSource: ds, config, logger }, 'invite-accept', { address: clientAddress(req) });
+    const result = await acceptInvite(ds, inviteToken, signedIn, validBody(req, acceptInviteSchema));
     if (result.created) await startUserSession(req, result.userId);
     logger.log('info', 'clubs.invite_accepted', { clubId: result.clubId, userId: result.userId, newAccount: result.created });
     res.status(result.created ? 201 : 200).json({ clubId: result.clubId, role: 'member' });

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 import { tooManyRequests } from '../errors.js';
+import { countInWindow } from './attempt-limiter.js';
 
 /**
  * Brute-force limit for sign-in (ASVS 6.3.1, OWASP Authentication cheat sheet): failures are
@@ -13,20 +14,10 @@ export const MAX_FAILURES_PER_ACCOUNT = 5;
 /** Failures allowed per address across all accounts (password spraying from one place). */
 export const MAX_FAILURES_PER_ADDRESS = 20;
 
-interface WindowCount {
-  failures: number;
-  retryAfter: number;
-}
-
-async function countWindow(ds: DataSource, column: 'email' | 'address', value: string): Promise<WindowCount> {
-  const rows: { failures: string; retry_after: string | null }[] = await ds.query(
-    `SELECT count(*) AS failures,
-            ceil(extract(epoch FROM (min(created_at) + make_interval(secs => $2) - now()))) AS retry_after
-       FROM sign_in_failures
-      WHERE ${column} = $1 AND created_at > now() - make_interval(secs => $2)`,
-    [value, SIGN_IN_WINDOW_SECONDS],
-  );
-  return { failures: Number(rows[0]?.failures ?? 0), retryAfter: Number(rows[0]?.retry_after ?? 1) };
+/** This account's or this address's failures in the window (the shared sliding-window query). */
+async function countWindow(ds: DataSource, column: 'email' | 'address', value: string): Promise<{ failures: number; retryAfter: number }> {
+  const { count, retryAfter } = await countInWindow(ds, 'sign_in_failures', { [column]: value }, SIGN_IN_WINDOW_SECONDS);
+  return { failures: count, retryAfter };
 }
 
 /** Throws 429 with Retry-After when the account or the address has used up its failures. */

@@ -18,6 +18,7 @@ export const TEST_APP_URL = 'http://shoalshift.test';
 const TABLES = [
   'session',
   'sign_in_failures',
+  'auth_attempts',
   'password_reset_tokens',
   'plans',
   'readings',
@@ -71,6 +72,9 @@ export function useTestApp(options: { env?: Record<string, string>; extraApiRout
       SMTP_PORT: String(ctx.mail.smtpPort),
       MAIL_FAKE_URL: ctx.mail.url,
       STATIC_DIR: ctx.staticDir,
+      // Many tests sign up accounts from one loopback address; tests/api/auth-rate-limit.test.ts
+      // turns the limits on. Production refuses them off, so an app made as production keeps them.
+      AUTH_ATTEMPT_LIMITS: (env.NODE_ENV ?? options.env?.NODE_ENV) === 'production' ? undefined : 'off',
       ...options.env,
       ...env,
     });
