@@ -1,6 +1,6 @@
 import PgBoss from 'pg-boss';
 import type { AppDeps } from '../deps.js';
-import { READING_CHECK_QUEUE, checkReading } from './alerts.js';
+import { IMPORT_CHECK_QUEUE, READING_CHECK_QUEUE, checkImportedReadings, checkReading, type ImportCheckJob } from './alerts.js';
 import { REMINDER_SCAN_QUEUE, REMINDER_SEND_QUEUE, dueReminders, sendReminder, utcDate, type ReminderJob } from './reminders.js';
 
 /** What routes need from the queue: enqueue a job. */
@@ -36,7 +36,7 @@ export async function startJobs(deps: Pick<AppDeps, 'config' | 'dataSource' | 'm
   const boss = new PgBoss({ connectionString: config.databaseUrl, max: 3, application_name: 'shoalshift-jobs', schedule: options.schedule ?? true });
   boss.on('error', (err) => logger.log('error', 'jobs.error', { error: String(err) }));
   await boss.start();
-  for (const name of [REMINDER_SCAN_QUEUE, REMINDER_SEND_QUEUE, READING_CHECK_QUEUE]) {
+  for (const name of [REMINDER_SCAN_QUEUE, REMINDER_SEND_QUEUE, READING_CHECK_QUEUE, IMPORT_CHECK_QUEUE]) {
     // createQueue is idempotent in pg-boss 10; retries with backoff cover a brief SMTP outage.
     await boss.createQueue(name, { name, retryLimit: 5, retryDelay: 30, retryBackoff: true });
   }
@@ -76,6 +76,13 @@ export async function startJobs(deps: Pick<AppDeps, 'config' | 'dataSource' | 'm
     polling,
     logged(READING_CHECK_QUEUE, async (jobs) => {
       for (const job of jobs) await checkReading(deps, job.data.readingId);
+    }),
+  );
+  await boss.work<ImportCheckJob>(
+    IMPORT_CHECK_QUEUE,
+    polling,
+    logged(IMPORT_CHECK_QUEUE, async (jobs) => {
+      for (const job of jobs) await checkImportedReadings(deps, job.data);
     }),
   );
   if (options.schedule ?? true) await boss.schedule(REMINDER_SCAN_QUEUE, REMINDER_SCAN_CRON, {}, { tz: 'UTC' });

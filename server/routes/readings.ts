@@ -10,7 +10,7 @@ import {
   type ImportPreview,
 } from '../../shared/schemas/reading.js';
 import type { AppDeps } from '../deps.js';
-import { onReadingLogged } from '../jobs/alerts.js';
+import { onReadingLogged, onReadingsImported } from '../jobs/alerts.js';
 import { AppError, notFound, payloadTooLarge, validationFailed } from '../errors.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
 import { presentReading } from '../presenters/tank.js';
@@ -133,6 +133,8 @@ export function readingsRouter(deps: AppDeps): Router {
     if (result.duplicates.length > 0) {
       throw new AppError(422, 'import_rejected', 'Nothing was imported: some tests are already logged.', rowFields(result.duplicates));
     }
+    // One alert check for the import's recent tests (server/jobs/alerts.ts); never throws.
+    await onReadingsImported(deps, tankId(req), checked.rows.map((r) => r.takenAt));
     res.status(201).json({ imported: result.imported });
   });
 

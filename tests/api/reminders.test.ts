@@ -3,11 +3,20 @@ import request from 'supertest';
 import { Reading } from '../../server/entities/reading.js';
 import { ReminderOptOut } from '../../server/entities/reminder-opt-out.js';
 import type { AppDeps } from '../../server/deps.js';
-import { onReadingLogged, limitFindings } from '../../server/jobs/alerts.js';
+import {
+  IMPORT_ALERT_MAX_LISTED,
+  IMPORT_ALERT_RECENT_DAYS,
+  IMPORT_CHECK_QUEUE,
+  checkImportedReadings,
+  limitFindings,
+  onReadingLogged,
+  type ImportCheckJob,
+} from '../../server/jobs/alerts.js';
 import { REMINDER_SCAN_QUEUE, checkDayOn, sendReminder, utcDate } from '../../server/jobs/reminders.js';
 import { startJobs, type JobRunner } from '../../server/jobs/runner.js';
 import { createMailer } from '../../server/mail/mailer.js';
 import { GOOD_PASSWORD, createPlan, createReading, createTank, createUser } from './helpers/factories.js';
+import { signedInKeeper } from './helpers/keeper-client.js';
 import { client, sleep, useTestApp } from './helpers/test-app.js';
 
 const ctx = useTestApp();
@@ -167,5 +176,94 @@ describe('alerts for logged readings', () => {
     // 2729.92/T), i.e. ≈ 0.12 mg NH3/L, over the CCME 0.019 mg NH3/L guideline; at pH 6.5 ≈ 0.003.
     expect(limitFindings({ tanMgN: 1, no2MgN: 0, ph: 8.2, temperatureC: 28 })[0]).toMatch(/Free ammonia 0\.12 mg NH3\/L/);
     expect(limitFindings({ tanMgN: 1, no2MgN: 0, ph: 6.5, temperatureC: 28 })).toEqual([]);
+  });
+});
+
+describe('alerts for imported readings (one e-mail per import at most)', () => {
+  const HEADER = 'taken_at,basis,total_ammonia,nitrite,nitrate,ph,temperature_c,kh_dkh,note';
+  const hoursAgo = (h: number) => new Date(Date.now() - h * 3_600_000);
+  const row = (at: Date, no2: number, tan = 0.1) => `${at.toISOString()},N,${tan},${no2},10,7.2,25,4,`;
+  /** How the alert names a test's time. */
+  const utcMinute = (d: Date) => `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+  const alertsFor = (tankName: string) => () => ctx.mail.messages().filter((m) => m.subject === `Water test alert for ${tankName}`);
+  const importJobs = async () =>
+    ((await ctx.deps.dataSource.query(`SELECT data FROM pgboss.job WHERE name = $1`, [IMPORT_CHECK_QUEUE])) as { data: ImportCheckJob }[]).map((r) => r.data);
+
+  async function importer(tankName: string) {
+    const keeper = await signedInKeeper(ctx, 'jun@example.org');
+    const tank = await createTank(ctx.deps.dataSource, keeper.user.id, { name: tankName });
+    return { keeper, tank, commit: (rows: string[]) => keeper.upload(`/api/tanks/${tank.id}/readings/import/commit`, [HEADER, ...rows].join('\n')) };
+  }
+
+  it('one recent over-limit nitrite among normal rows → exactly one alert naming it; an old high row is left out; re-running the job sends nothing more', async () => {
+    const { tank, commit } = await importer('Landing 60 L');
+    const [a, b] = await twoWorkers();
+    ctx.deps.jobs = a.jobs;
+    try {
+      const high = hoursAgo(20);
+      // 0.5 mg NO2-N/L is over the 0.1 mg N/L culture-practice limit (Boyd, via simulation/limits.ts);
+      // 0.8 is too, but 30 days old: history, not an alarm. The rest are normal (0 nitrite, 0.1 TAN at pH 7.2).
+      await commit([row(hoursAgo(24 * 30), 0.8), row(hoursAgo(72), 0), row(hoursAgo(48), 0), row(high, 0.5), row(hoursAgo(2), 0)]).expect(201);
+      const alerts = alertsFor('Landing 60 L');
+      expect(await settle(() => alerts().length, 1)).toBe(1);
+      const text = alerts()[0].text;
+      expect(text).toContain('Of the water tests you imported for Landing 60 L');
+      expect(text).toContain(`Test of ${utcMinute(high)}: Nitrite 0.50 mg N/L is over the limit of 0.1 mg N/L.`);
+      expect(text).not.toContain('0.80');
+      expect(text.match(/^- /gm)).toHaveLength(1);
+
+      // One job for the import, carrying only its four recent tests.
+      const jobs = await importJobs();
+      expect(jobs).toHaveLength(1);
+      expect(jobs[0]).toMatchObject({ tankId: tank.id });
+      expect(jobs[0].readingIds).toHaveLength(4);
+      const sent: { key: string }[] = await ctx.deps.dataSource.query(`SELECT key FROM mail_sends`);
+      expect(sent).toEqual([{ key: `alert:import:${jobs[0].importId}` }]);
+      // A retried or doubled job (any process) finds the key taken.
+      expect(await Promise.all([checkImportedReadings(a, jobs[0]), checkImportedReadings(b, jobs[0])])).toEqual([false, false]);
+      expect(alerts()).toHaveLength(1);
+      expect(await failedJobs()).toEqual([]);
+    } finally {
+      ctx.deps.jobs = undefined;
+    }
+  });
+
+  it(`an import of only old over-limit rows (over ${IMPORT_ALERT_RECENT_DAYS} days) queues no check and sends nothing`, async () => {
+    const { commit } = await importer('Shelf 25 L');
+    const [a] = await twoWorkers();
+    ctx.deps.jobs = a.jobs;
+    try {
+      // Nitrite 0.6 and 1.2 mg N/L, both over the 0.1 mg N/L limit (Boyd), taken 8 and 40 days ago.
+      await commit([row(hoursAgo(24 * 40), 1.2), row(hoursAgo(24 * 8), 0.6)]).expect(201);
+      expect(await settle(() => alertsFor('Shelf 25 L')().length, 0)).toBe(0);
+      expect(await importJobs()).toEqual([]);
+      expect(await ctx.deps.dataSource.query(`SELECT key FROM mail_sends`)).toEqual([]);
+    } finally {
+      ctx.deps.jobs = undefined;
+    }
+  });
+
+  it(`many alarming tests in one import → one e-mail listing the ${IMPORT_ALERT_MAX_LISTED} most recent and counting the rest`, async () => {
+    const ds = ctx.deps.dataSource;
+    const user = await createUser(ds, { email: 'lin@example.org', displayName: 'Lin' });
+    const tank = await createTank(ds, user.id, { name: 'Kitchen 90 L' });
+    // Nitrite 0.2–0.6 mg N/L, each over the 0.1 mg N/L limit (Boyd, via simulation/limits.ts).
+    const readings = [];
+    for (let i = 0; i < 5; i++) readings.push(await createReading(ds, tank.id, { takenAt: hoursAgo(10 + 24 * i), no2MgN: 0.2 + 0.1 * i, tanMgN: 0.1, ph: 7.2, temperatureC: 25 }));
+    readings.push(await createReading(ds, tank.id, { takenAt: hoursAgo(1), no2MgN: 0, tanMgN: 0.1, ph: 7.2, temperatureC: 25 }));
+    const job: ImportCheckJob = { tankId: tank.id, readingIds: readings.map((r) => r.id), importId: '00000000-0000-4000-8000-0000000000aa' };
+    expect(await checkImportedReadings(ctx.deps, job)).toBe(true);
+    expect(await checkImportedReadings(ctx.deps, job)).toBe(false);
+    const mails = alertsFor('Kitchen 90 L')();
+    expect(mails).toHaveLength(1);
+    const lines = mails[0].text.split('\n').filter((l) => l.startsWith('- '));
+    expect(lines).toEqual([
+      `- Test of ${utcMinute(readings[0].takenAt)}: Nitrite 0.20 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- Test of ${utcMinute(readings[1].takenAt)}: Nitrite 0.30 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- Test of ${utcMinute(readings[2].takenAt)}: Nitrite 0.40 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- 2 earlier imported tests from the last ${IMPORT_ALERT_RECENT_DAYS} days also need attention.`,
+    ]);
+    // A job for another tank's readings finds none of them.
+    expect(await checkImportedReadings(ctx.deps, { ...job, tankId: '00000000-0000-4000-8000-0000000000bb', importId: '00000000-0000-4000-8000-0000000000cc' })).toBe(false);
   });
 });
