@@ -72,11 +72,17 @@ async function main() {
     console.log(`load average before: ${os.loadavg().map((x) => x.toFixed(2)).join(' ')} (other work on this machine skews the figures)`);
     console.log(`127.0.0.1 only; ${WARMUP_SECONDS} s warm-up discarded, then ${SECONDS} s measured per run; ${CONNECTIONS} connections\n`);
 
+    // 0. The floor of this machine: the health check (no session; one `SELECT 1`) through the
+    //    same pipeline (headers, guards, logging) at the same concurrency. No route can beat it.
+    const floor = await measure({ url: `${base}/api/health`, connections: CONNECTIONS });
+    console.log(line('GET /api/health (floor)', floor));
+
     // 1. Forecast of a saved plan (served from the engine pool / cache), else the tank detail.
     if (planId) {
       const r = await measure({ url: `${base}/api/plans/${planId}/forecast`, method: 'POST', connections: CONNECTIONS, headers: { ...headers, ...CSRF } });
       const ok = r.latency.p99 <= 50 && r.errors + r.timeouts === 0 && r.non2xx === 0;
       console.log(line('POST /api/plans/:id/forecast', r, `target p99 ≤ 50 ms, 0 errors: ${ok ? 'MET' : 'NOT MET'}`));
+      console.log(`  ratio to the floor: ${(r.requests.average / floor.requests.average).toFixed(2)}× its req/s, ${(r.latency.p99 / Math.max(1, floor.latency.p99)).toFixed(1)}× its p99`);
       // Closed loop, 50 connections: latency ≈ connections ÷ throughput (Little's law), so the
       // same route is also measured at a fixed offered rate, where p99 is the service time.
       const rate = Number(process.env.FORECAST_RATE ?? 300);

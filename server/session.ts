@@ -1,4 +1,5 @@
 import connectPgSimple from 'connect-pg-simple';
+import { LRUCache } from 'lru-cache';
 import session from 'express-session';
 import type { Request } from 'express';
 import type { Pool } from 'pg';
@@ -29,18 +30,28 @@ export function createSessionMiddleware(config: Config, pool: Pool, logger: Logg
    * express-session holds every answer until the store's touch returns. Here the touch is
    * answered at once and the row's expiry moves in the background, and only when it has moved
    * by more than the step. A lost touch can only make a session end earlier, never later.
+   * Each process remembers the expiry it last wrote per session, so most requests send no
+   * query at all; forgetting (a restart, another process) only costs one more UPDATE.
    */
+  const lastWritten = new LRUCache<string, number>({ max: 50_000 });
   class SessionStore extends PgStore {
     override touch(sid: string, sess: session.SessionData, fn?: (err?: unknown) => void): void {
       const expires = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : Date.now() + config.session.idleSeconds * 1000;
       const expireSeconds = Math.ceil(expires / 1000);
-      pool
-        .query(`UPDATE session SET expire = to_timestamp($1) WHERE sid = $2 AND expire < to_timestamp($1) - make_interval(secs => $3)`, [
-          expireSeconds,
-          sid,
-          touchStepSeconds,
-        ])
-        .catch((err: unknown) => logger.log('warn', 'session.touch_failed', { error: String(err) }));
+      const written = lastWritten.get(sid);
+      if (written === undefined || expireSeconds - written > touchStepSeconds) {
+        lastWritten.set(sid, expireSeconds);
+        pool
+          .query(`UPDATE session SET expire = to_timestamp($1) WHERE sid = $2 AND expire < to_timestamp($1) - make_interval(secs => $3)`, [
+            expireSeconds,
+            sid,
+            touchStepSeconds,
+          ])
+          .catch((err: unknown) => {
+            lastWritten.delete(sid);
+            logger.log('warn', 'session.touch_failed', { error: String(err) });
+          });
+      }
       fn?.();
     }
   }
