@@ -100,7 +100,7 @@ export const ForecastChart = memo(function ForecastChart({ view, basis, showBand
     <View testID={testID} onLayout={onLayout} style={{ gap: space.md }} accessibilityElementsHidden importantForAccessibility="no-hide-descendants">
       {width > 0 ? panels.map((p) => <Panel key={p.key} panel={p} days={view.days} width={width} />) : null}
       <AppText variant="caption" tone="textMuted">
-        Across: days from the plan start. Dashed red lines: the limits.
+        Across: days from the start (day 0). Dashed red lines: the limits.
       </AppText>
     </View>
   );

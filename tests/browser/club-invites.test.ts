@@ -2,7 +2,7 @@ import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, mailbox, newPage, screenshot, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, mailbox, newPage, screenshot, signIn, type ViewportName, VIEWPORTS } from './support';
 
 const organizer = DEMO_PEOPLE.find((p) => p.key === 'organizer')!;
 
@@ -19,10 +19,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('club invites at %s size
     // A fresh address each run, so a rerun against the same database starts clean.
     const email = `visitor.${size}.${Date.now()}@example.org`;
     const { context, page } = await newPage(browser, size);
-    await page.goto('/sign-in');
-    await page.getByTestId('sign-in-email').fill(organizer.email);
-    await page.getByTestId('sign-in-password').fill(organizer.password);
-    await page.getByTestId('sign-in-submit').click();
+    await signIn(page, organizer);
     await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 
     await page.goto('/clubs');

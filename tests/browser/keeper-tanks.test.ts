@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, newPage, screenshot, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, newPage, screenshot, signIn, VIEWPORTS, type ViewportName } from './support';
 
 const sam = DEMO_PEOPLE.find((p) => p.key === 'keeper')!;
 
@@ -15,14 +15,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-async function signIn(page: Page) {
-  await page.goto('/sign-in');
-  await page.getByTestId('sign-in-email').fill(sam.email);
-  await page.getByTestId('sign-in-password').fill(sam.password);
-  await page.getByTestId('sign-in-submit').click();
-  await page.getByTestId('screen-home').waitFor();
-}
 
 /** Puts the person's units back through the settings screen (the demo keeper starts metric, as N). */
 async function setUnits(page: Page, volume: 'L' | 'USgal', temperature: 'C' | 'F', basis: 'N' | 'ion') {
@@ -41,7 +33,7 @@ async function setUnits(page: Page, volume: 'L' | 'USgal', temperature: 'C' | 'F
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('keeper tanks at %s size', (size) => {
   it('creates a tank, adds fish, logs a test, switches units, imports a CSV', async () => {
     const { context, page } = await newPage(browser, size, size === 'phone' ? 'light' : 'dark');
-    await signIn(page);
+    await signIn(page, sam);
     await setUnits(page, 'L', 'C', 'N');
 
     // New tank from a name, a volume and a filter kind.

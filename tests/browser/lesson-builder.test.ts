@@ -3,7 +3,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
 import { GUESS_STEP } from '../../components/lessons/lesson-builder-model';
-import { launchBrowser, newPage, screenshot, type ViewportName } from './support';
+import { launchBrowser, newPage, screenshot, signIn, type ViewportName } from './support';
 
 const mentor = DEMO_PEOPLE.find((p) => p.key === 'mentor')!;
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
@@ -16,13 +16,6 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signIn(page: Page, person: { email: string; password: string }) {
-  await page.goto('/sign-in');
-  await page.getByTestId('sign-in-email').fill(person.email);
-  await page.getByTestId('sign-in-password').fill(person.password);
-  await page.getByTestId('sign-in-submit').click();
-  await page.getByTestId('screen-home').waitFor();
-}
 
 /** The builder's fields for a short single lesson: a bigger tank, thirty barbs on day 1, a first step. */
 async function fillLesson(page: Page, title: string) {

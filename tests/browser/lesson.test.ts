@@ -6,7 +6,7 @@ import { forecast } from '../../simulation/forecast';
 import { peakOf } from '../../simulation/series-stats';
 import { fromPixels, guessGeometry } from '../../components/lessons/guess-geometry';
 import { shortValue } from '../../components/lessons/guess-score';
-import { launchBrowser, newPage, screenshot, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, newPage, screenshot, signIn, type ViewportName, VIEWPORTS } from './support';
 
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
 const lesson = DEMO_LESSONS.find((l) => l.key === 'big-purchase')!;
@@ -22,10 +22,7 @@ afterAll(async () => {
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a starter lesson at %s size', (size) => {
   it('the demo member opens it, drags a guess, reveals the forecast and sees how close it was', async () => {
     const { context, page } = await newPage(browser, size);
-    await page.goto('/sign-in');
-    await page.getByTestId('sign-in-email').fill(member.email);
-    await page.getByTestId('sign-in-password').fill(member.password);
-    await page.getByTestId('sign-in-submit').click();
+    await signIn(page, member);
     await page.getByTestId('tank-list').waitFor();
 
     await page.goto('/lessons');

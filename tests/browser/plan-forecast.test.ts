@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, newPage, screenshot, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, newPage, screenshot, signIn, type ViewportName, VIEWPORTS } from './support';
 
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
 
@@ -36,10 +36,7 @@ async function dragSlider(page: Page, dx: number): Promise<void> {
 describe.each(Object.keys(VIEWPORTS) as ViewportName[])('plan and forecast at %s size', (size) => {
   it("opens the member's active plan, redraws the forecast while the slider moves, applies advice and saves", async () => {
     const { context, page } = await newPage(browser, size);
-    await page.goto('/sign-in');
-    await page.getByTestId('sign-in-email').fill(member.email);
-    await page.getByTestId('sign-in-password').fill(member.password);
-    await page.getByTestId('sign-in-submit').click();
+    await signIn(page, member);
     await page.getByTestId('tank-list').waitFor();
 
     await page.goto('/plans');

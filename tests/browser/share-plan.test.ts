@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, newPage, screenshot } from './support';
+import { launchBrowser, newPage, screenshot, signIn } from './support';
 
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
 
@@ -16,10 +16,7 @@ afterAll(async () => {
 describe('a read-only link to a plan', () => {
   it('is made on the plan page, opens without an account showing only that plan, and stops working once revoked', async () => {
     const { context, page } = await newPage(browser, 'phone');
-    await page.goto('/sign-in');
-    await page.getByTestId('sign-in-email').fill(member.email);
-    await page.getByTestId('sign-in-password').fill(member.password);
-    await page.getByTestId('sign-in-submit').click();
+    await signIn(page, member);
     await page.getByTestId('tank-list').waitFor();
     await page.goto('/plans');
     await page.getByTestId('plans-list').getByText('Harlequin rasboras in three batches').click();

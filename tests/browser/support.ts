@@ -50,6 +50,15 @@ export async function screenshot(page: Page, name: string): Promise<string> {
   return file;
 }
 
+/** Signs in through the form; resolves once the home screen shows. */
+export async function signIn(page: Page, person: { email: string; password: string }): Promise<void> {
+  await page.goto('/sign-in');
+  await page.getByTestId('sign-in-email').fill(person.email);
+  await page.getByTestId('sign-in-password').fill(person.password);
+  await page.getByTestId('sign-in-submit').click();
+  await page.getByTestId('screen-home').waitFor();
+}
+
 /** The local e-mail fake's captured messages, newest first. */
 export async function mailbox(): Promise<{ to: string; subject: string; text: string }[]> {
   const res = await fetch(`${MAIL_URL}/messages`);
