@@ -1,7 +1,7 @@
 import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { lessonKeys } from '@/lib/query-keys';
-import { lessonDetailSchema, lessonListSchema, type CreateLessonInput } from '@/shared/schemas/lesson';
+import { lessonDetailSchema, lessonListSchema, type CreateLessonInput, type UpdateLessonTextInput } from '@/shared/schemas/lesson';
 import { createdShareLinkSchema, shareLinkListSchema, sharedViewSchema, type ShareableType } from '@/shared/schemas/share';
 
 /** Lessons change only when a mentor edits them. */
@@ -29,6 +29,21 @@ export function useCreateLesson() {
     onSuccess: (lesson) => {
       qc.setQueryData(lessonKeys.detail(lesson.id), lesson);
       void qc.invalidateQueries({ queryKey: lessonKeys.list() });
+    },
+  });
+}
+
+/** The author or an organizer rewords a lesson (PATCH /api/lessons/:id): title, summary, steps. */
+export function useUpdateLessonText(id: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (input: UpdateLessonTextInput) =>
+      apiRequest(`/api/lessons/${encodeURIComponent(id)}`, { method: 'PATCH', body: input, schema: lessonDetailSchema }),
+    onSuccess: (lesson) => {
+      qc.setQueryData(lessonKeys.detail(lesson.id), lesson);
+      // The list shows titles and summaries; a share link's public view shows the words too.
+      void qc.invalidateQueries({ queryKey: lessonKeys.list() });
+      void qc.invalidateQueries({ queryKey: [...lessonKeys.all, 'shared'] });
     },
   });
 }

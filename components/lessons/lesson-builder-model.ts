@@ -6,7 +6,7 @@
  * `createLessonSchema`, every message keyed by the form field that shows it.
  */
 import { fieldErrors } from '@/shared/api-error';
-import { createLessonSchema, type CreateLessonInput, type LessonKind } from '@/shared/schemas/lesson';
+import { createLessonSchema, LESSON_MAX_STEPS, type CreateLessonInput, type LessonKind } from '@/shared/schemas/lesson';
 import type { UnitPreferences } from '@/shared/schemas/preferences';
 import type { ScenarioEvent, ScenarioInput } from '@/shared/schemas/scenario';
 import { defaultSetup, TANK_DEFAULTS } from '@/shared/schemas/tank';
@@ -15,8 +15,8 @@ import { findSpecies } from '@/simulation/catalogue';
 import { zonesFromDescription, type FilterKind } from '@/simulation/presets';
 import { parseDecimal, temperatureInputText, temperatureToCelsius, volumeInputText, volumeToLitres } from '@/lib/units-format';
 
-/** The most steps a lesson may have (createLessonSchema). */
-export const MAX_LESSON_STEPS = 12;
+/** The most steps a lesson may have (the shared lesson schema's limit). */
+export const MAX_LESSON_STEPS = LESSON_MAX_STEPS;
 
 export const SUBSTRATE_CHOICES = ['bare', 'sand', 'gravel'] as const;
 export type LessonSubstrate = (typeof SUBSTRATE_CHOICES)[number];
@@ -163,6 +163,12 @@ export function stagedFromFast(fast: readonly ScenarioEvent[], batchesText: stri
 // ---- Form → request ---------------------------------------------------------------------------
 
 export type LessonFormErrors = Record<string, string>;
+
+/** Drops the messages of a field just edited, and of its parts (`steps` → `steps.0.title`); same object when none. */
+export function clearTouched(errors: Readonly<LessonFormErrors>, touched: string): LessonFormErrors {
+  const next = Object.fromEntries(Object.entries(errors).filter(([k]) => k !== touched && !k.startsWith(`${touched}.`)));
+  return Object.keys(next).length === Object.keys(errors).length ? (errors as LessonFormErrors) : next;
+}
 
 /** Form field keys the screen shows messages under. */
 export const TANK_FIELDS = ['tank.volume', 'tank.temperature', 'tank.ph', 'tank.kh', 'tank.waterChangePercent', 'tank.waterChangeEveryDays'] as const;

@@ -23,6 +23,7 @@ import { ChoiceGroup } from '@/components/settings/choice-group';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import {
   buildLessonInput,
+  clearTouched,
   emptyLessonForm,
   errorPlaces,
   horizonOf,
@@ -81,10 +82,7 @@ function Builder({ clubs, initialClubId }: { clubs: ClubSummary[]; initialClubId
   const update = (patch: Partial<LessonBuilderForm>, touched: string) => {
     setForm((f) => ({ ...f, ...patch }));
     setBanner(null);
-    setErrors((prev) => {
-      const next = Object.fromEntries(Object.entries(prev).filter(([k]) => k !== touched && !k.startsWith(`${touched}.`)));
-      return Object.keys(next).length === Object.keys(prev).length ? prev : next;
-    });
+    setErrors((prev) => clearTouched(prev, touched));
   };
 
   // The preview follows the form without holding up typing.

@@ -8,6 +8,7 @@ import { AppText, Heading } from '@/components/ui/text';
 import { TextLink } from '@/components/ui/text-link';
 import { Loading, LoadError } from '@/components/ui/load-state';
 import { LessonPlayer } from './lesson-player';
+import { LessonTextEditor } from './lesson-text-editor';
 import { ShareLinkPanel } from '@/components/share/share-link-panel';
 
 /** One lesson of the caller's club. */
@@ -30,6 +31,7 @@ export function LessonScreen({ id }: { id: string }) {
             <AppText tone="textMuted">{`${lesson.data.clubName} · by ${lesson.data.authorName}${lesson.data.kind === 'compare' ? ' · comparison' : ''}`}</AppText>
             {lesson.data.summary ? <AppText>{lesson.data.summary}</AppText> : null}
           </View>
+          {lesson.data.canManage ? <LessonTextEditor lesson={lesson.data} /> : null}
           <LessonPlayer lesson={lesson.data} />
           {lesson.data.canManage ? <ShareLinkPanel itemType="lesson" itemId={lesson.data.id} /> : null}
         </>

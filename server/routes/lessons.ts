@@ -1,15 +1,15 @@
 import { Router } from 'express';
-import { createLessonSchema } from '../../shared/schemas/lesson.js';
+import { createLessonSchema, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
 import type { AppDeps } from '../deps.js';
 import { forbidden } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { requireClubRole } from '../services/clubs.js';
-import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail } from '../services/lessons.js';
+import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail, updateLessonText } from '../services/lessons.js';
 import { Lesson } from '../entities/lesson.js';
 import { idParam } from './club-params.js';
 
-/** /api/lessons: the lessons of the caller's clubs; read, delete. */
+/** /api/lessons: the lessons of the caller's clubs; read, reword, delete. */
 export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
   const router = Router();
   const auth = requireAuth(ds, config);
@@ -21,6 +21,13 @@ export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
   router.get('/:lessonId', auth, async (req, res) => {
     const { lesson, membership } = await loadLesson(ds, currentUser(req).id, idParam(req, 'lessonId', 'lesson'));
     res.json(presentLessonDetail(lesson, membership, await authorName(ds, lesson)));
+  });
+
+  // The words only (title, summary, steps); the scenario stays as built. Same rights as delete.
+  router.patch('/:lessonId', auth, validateBody(updateLessonTextSchema), async (req, res) => {
+    const { lesson, membership } = await loadLesson(ds, currentUser(req).id, idParam(req, 'lessonId', 'lesson'));
+    const updated = await updateLessonText(ds, lesson, membership, validBody(req, updateLessonTextSchema));
+    res.json(presentLessonDetail(updated, membership, await authorName(ds, updated)));
   });
 
   router.delete('/:lessonId', auth, async (req, res) => {

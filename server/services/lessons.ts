@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { ClubRole } from '../../shared/schemas/auth.js';
-import type { LessonDetail, LessonSummary } from '../../shared/schemas/lesson.js';
+import type { LessonDetail, LessonStep, LessonSummary } from '../../shared/schemas/lesson.js';
 import type { Scenario } from '../../shared/schemas/scenario.js';
 import { forbidden, notFound, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -78,6 +78,27 @@ export async function loadLesson(ds: DataSource, userId: string, lessonId: strin
 /** The author, or an organizer of the club, manages a lesson. */
 export function canManageLesson(lesson: Lesson, membership: ClubMembership): boolean {
   return membership.role === 'organizer' || (membership.role === 'mentor' && lesson.authorId === membership.userId);
+}
+
+/** New words for a lesson (any of them); the scenario stays as it was built. */
+export interface LessonTextInput {
+  title?: string;
+  summary?: string;
+  steps?: LessonStep[];
+}
+
+/** The author or an organizer rewords a lesson; others in the club get 403 (they can read it). */
+export async function updateLessonText(ds: DataSource, lesson: Lesson, membership: ClubMembership, input: LessonTextInput): Promise<Lesson> {
+  if (!canManageLesson(lesson, membership)) throw forbidden('Only the lesson’s author or an organizer can edit it.');
+  const changes: Partial<Pick<Lesson, 'title' | 'summary' | 'steps'>> = {};
+  if (input.title !== undefined) changes.title = input.title;
+  if (input.summary !== undefined) changes.summary = input.summary;
+  if (input.steps !== undefined) changes.steps = input.steps.map((s) => ({ title: s.title, body: s.body }));
+  await ds.getRepository(Lesson).update({ id: lesson.id }, changes);
+  // Deleted meanwhile (by the other manager): the same answer as a lesson that never existed.
+  const updated = await ds.getRepository(Lesson).findOneBy({ id: lesson.id });
+  if (!updated) throw notFound('No such lesson.');
+  return updated;
 }
 
 export async function authorName(ds: DataSource, lesson: Lesson): Promise<string> {

@@ -8,6 +8,13 @@ export const lessonStepSchema = z.strictObject({
 });
 export type LessonStep = z.infer<typeof lessonStepSchema>;
 
+/** A lesson's title, summary and steps: one rule each, shared by creating and editing. */
+export const lessonTitleFieldSchema = z.string({ error: 'Give the lesson a title.' }).trim().min(3, 'Use at least 3 characters.').max(120, 'Use at most 120 characters.');
+export const lessonSummaryFieldSchema = z.string().trim().max(400, 'Use at most 400 characters.');
+/** The most steps a lesson may have. */
+export const LESSON_MAX_STEPS = 12;
+export const lessonStepsFieldSchema = z.array(lessonStepSchema).min(1, 'Write at least one step.').max(LESSON_MAX_STEPS, `At most ${LESSON_MAX_STEPS} steps.`);
+
 /** "single": one forecast; "compare": all at once (`scenario`) against staged (`stagedScenario`). */
 export const lessonKindSchema = z.enum(['single', 'compare']);
 export type LessonKind = z.infer<typeof lessonKindSchema>;
@@ -18,13 +25,13 @@ export type LessonKind = z.infer<typeof lessonKindSchema>;
  */
 export const createLessonSchema = z
   .strictObject({
-    title: z.string({ error: 'Give the lesson a title.' }).trim().min(3, 'Use at least 3 characters.').max(120, 'Use at most 120 characters.'),
-    summary: z.string().trim().max(400, 'Use at most 400 characters.').default(''),
+    title: lessonTitleFieldSchema,
+    summary: lessonSummaryFieldSchema.default(''),
     kind: lessonKindSchema.default('single'),
     scenario: scenarioSchema.optional(),
     stagedScenario: scenarioSchema.optional(),
     fromShareId: z.string().uuid().optional(),
-    steps: z.array(lessonStepSchema).min(1, 'Write at least one step.').max(12, 'At most 12 steps.'),
+    steps: lessonStepsFieldSchema,
   })
   .superRefine((l, ctx) => {
     if ((l.scenario === undefined) === (l.fromShareId === undefined))
@@ -35,6 +42,19 @@ export const createLessonSchema = z
       ctx.addIssue({ code: 'custom', path: ['stagedScenario'], message: 'Only comparison lessons have a staged scenario.' });
   });
 export type CreateLessonInput = z.input<typeof createLessonSchema>;
+
+/**
+ * PATCH /api/lessons/:lessonId — the author or an organizer rewords a lesson: any of title,
+ * summary and steps (the steps replace the old ones). The tank and timeline are not editable.
+ */
+export const updateLessonTextSchema = z
+  .strictObject({
+    title: lessonTitleFieldSchema.optional(),
+    summary: lessonSummaryFieldSchema.optional(),
+    steps: lessonStepsFieldSchema.optional(),
+  })
+  .refine((l) => l.title !== undefined || l.summary !== undefined || l.steps !== undefined, { message: 'Change the title, the summary or the steps.' });
+export type UpdateLessonTextInput = z.input<typeof updateLessonTextSchema>;
 
 export const lessonSummarySchema = z.object({
   id: z.string().uuid(),

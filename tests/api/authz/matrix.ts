@@ -222,7 +222,7 @@ export const MATRIX: Record<string, MatrixRow> = {
     expect: clubA(['mentor', 'organizerA']),
   },
 
-  // ── lessons: club A's people read; mentors and organizers write; author or organizer delete
+  // ── lessons: club A's people read; mentors and organizers write; author or organizer edit and delete
   'POST /api/clubs/:clubId/lessons': {
     request: (fx) => ({
       path: `/api/clubs/${fx.clubA}/lessons`,
@@ -235,6 +235,10 @@ export const MATRIX: Record<string, MatrixRow> = {
     request: (fx) => ({ path: `/api/lessons/${fx.extra.lesson}` }),
     expect: clubA(['member', 'mentor', 'organizerA']),
     mayShow: (fx) => [fx.clubA],
+  },
+  'PATCH /api/lessons/:lessonId': {
+    request: (fx) => ({ path: `/api/lessons/${fx.extra.lesson}`, body: { title: 'Matrix lesson, reworded', steps: [{ title: 'One', body: 'Read the forecast again.' }] } }),
+    expect: clubA(['mentor', 'organizerA']),
   },
   'DELETE /api/lessons/:lessonId': {
     request: (fx) => ({ path: `/api/lessons/${fx.extra.lesson}` }),

@@ -7,7 +7,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../../shared/api-error.js';
 import { forgotPasswordSchema, resetPasswordSchema, signInSchema, signUpSchema } from '../../../shared/schemas/auth.js';
 import { acceptInviteSchema, createClubSchema, createCommentSchema, createInviteSchema, createShareSchema, memberRoleSchema } from '../../../shared/schemas/club.js';
-import { createLessonSchema } from '../../../shared/schemas/lesson.js';
+import { createLessonSchema, updateLessonTextSchema } from '../../../shared/schemas/lesson.js';
 import {
   additionAdviceBodySchema,
   calibrationBodySchema,
@@ -77,6 +77,7 @@ const TARGETS: Target[] = [
   { name: 'club share', method: 'post', path: (fx) => `/api/clubs/${fx.clubA}/shares`, schema: createShareSchema, valid: (fx) => ({ itemType: 'tank', itemId: fx.tanks.member }), runs: 150 },
   { name: 'comment', method: 'post', path: (fx) => `/api/clubs/${fx.clubA}/shares/${fx.extra.planShare}/comments`, schema: createCommentSchema, valid: { body: 'Looks fine.' }, actor: 'mentor', runs: 150 },
   { name: 'lesson create', method: 'post', path: (fx) => `/api/clubs/${fx.clubA}/lessons`, schema: createLessonSchema, valid: { title: 'Fuzz lesson', scenario: EXAMPLE_SCENARIO, steps: [{ title: 'A', body: 'B' }] }, actor: 'mentor', runs: 150 },
+  { name: 'lesson words', method: 'patch', path: (fx) => `/api/lessons/${fx.extra.lesson}`, schema: updateLessonTextSchema, valid: { title: 'Fuzz lesson', summary: 'S', steps: [{ title: 'A', body: 'B' }] }, actor: 'mentor', runs: 150 },
   { name: 'share link', method: 'post', path: () => '/api/share-links', schema: createShareLinkSchema, valid: (fx) => ({ itemType: 'plan', itemId: fx.plans.member, expiresInDays: 7 }), runs: 150 },
   { name: 'invite accept', method: 'post', path: (fx) => `/api/invites/${fx.extra.inviteToken}/accept`, schema: acceptInviteSchema, valid: { displayName: 'New', password: 'brackish-river-stone-9' }, skipAccepted: true, anonymous: true, runs: 150 },
   { name: 'advice addition', method: 'post', path: (fx) => `/api/tanks/${fx.tanks.member}/advice/addition`, schema: additionAdviceBodySchema, valid: { fish: { species: 'neon-tetra', count: 4 } }, skipAccepted: true, runs: 150 },
