@@ -15,7 +15,10 @@ started_db=0
 pids=()
 
 cleanup() {
-  trap - INT TERM EXIT
+  # Ctrl-C reaches this script twice (from the terminal, and again forwarded by npm): ignore
+  # the second so it cannot cut the cleanup short and leave the database running.
+  trap '' INT TERM
+  trap - EXIT
   say "stopping…"
   for p in "${pids[@]:-}"; do [ -n "$p" ] && kill -TERM "$p" 2>/dev/null || true; done
   for p in "${pids[@]:-}"; do [ -n "$p" ] && wait "$p" 2>/dev/null || true; done
