@@ -24,6 +24,7 @@ import {
   signIn,
   sleep,
   startCluster,
+  stopCluster,
   startServer,
   type Server,
 } from './harness.js';
@@ -287,7 +288,11 @@ async function main() {
     await f3(server, cookie, tankId, dbUrl);
     await f4(dbUrl);
   } finally {
-    if (server.child.exitCode === null) server.child.kill('SIGTERM');
+    if (server.child.exitCode === null) {
+      server.child.kill('SIGTERM');
+      await server.exited;
+    }
+    stopCluster(CLUSTER);
   }
   console.log(`\n${failures.length === 0 ? 'all fault checks passed' : `${failures.length} fault check(s) failed:\n  ${failures.join('\n  ')}`}`);
   process.exit(failures.length === 0 ? 0 : 1);

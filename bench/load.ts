@@ -7,7 +7,7 @@
  */
 import os from 'node:os';
 import autocannon from 'autocannon';
-import { CSRF, DEMO_MEMBER, VIA_TLS_PROXY, freshDatabase, getJson, psql, signIn, startCluster, startServer } from './harness.js';
+import { CSRF, DEMO_MEMBER, VIA_TLS_PROXY, freshDatabase, getJson, psql, signIn, startCluster, startServer, stopCluster } from './harness.js';
 
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 10);
 const WARMUP_SECONDS = 3;
@@ -164,6 +164,7 @@ async function main() {
     const code = await server.exited;
     console.log(`\nserver stopped with SIGTERM → exit ${code}`);
     if (code !== 0) console.log(server.log.filter((l) => !l.startsWith('    at ')).slice(-8).join('\n'));
+    stopCluster('pg-d');
   }
 }
 
