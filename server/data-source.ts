@@ -21,3 +21,8 @@ export function createDataSource(databaseUrl: string, logger?: Logger): DataSour
     poolErrorHandler: (err: unknown) => logger?.log('warn', 'db.pool_error', { error: String(err) }),
   });
 }
+
+/** The rows of an `UPDATE … RETURNING`: TypeORM's postgres driver answers it with [rows, affectedCount]. */
+export function returnedRows<T>(result: unknown[]): T[] {
+  return (Array.isArray(result[0]) ? result[0] : result) as T[];
+}

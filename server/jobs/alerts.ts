@@ -203,22 +203,19 @@ export async function checkImportedReadings({ dataSource: ds, mailer, config, lo
  * older). With jobs off (JOBS=off) it only logs.
  */
 export async function onReadingsImported(
-  deps: Pick<AppDeps, 'jobs' | 'logger' | 'dataSource'>,
+  deps: Pick<AppDeps, 'jobs' | 'logger'>,
   tankId: string,
-  takenAts: readonly string[],
+  imported: readonly Pick<Reading, 'id' | 'takenAt'>[],
 ): Promise<void> {
+  const since = Date.now() - IMPORT_ALERT_RECENT_DAYS * 24 * 3600 * 1000;
+  const recent = imported.filter((r) => r.takenAt.getTime() > since);
+  if (recent.length === 0) return;
+  const job: ImportCheckJob = { tankId, readingIds: recent.map((r) => r.id), importId: randomUUID() };
+  if (!deps.jobs) {
+    deps.logger.log('info', 'jobs.disabled_import_not_checked', { tankId, readings: recent.length });
+    return;
+  }
   try {
-    const rows: { id: string }[] = await deps.dataSource.query(
-      `SELECT id FROM readings
-        WHERE tank_id = $1 AND taken_at = ANY($2::timestamptz[]) AND taken_at > now() - make_interval(days => $3)`,
-      [tankId, takenAts.map((t) => new Date(t).toISOString()), IMPORT_ALERT_RECENT_DAYS],
-    );
-    if (rows.length === 0) return;
-    const job: ImportCheckJob = { tankId, readingIds: rows.map((r) => r.id), importId: randomUUID() };
-    if (!deps.jobs) {
-      deps.logger.log('info', 'jobs.disabled_import_not_checked', { tankId, readings: rows.length });
-      return;
-    }
     await deps.jobs.send(IMPORT_CHECK_QUEUE, job, { singletonKey: `import:${job.importId}` });
   } catch (err) {
     // The import is saved either way; a missed alert must not turn it into an error.

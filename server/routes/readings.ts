@@ -134,8 +134,8 @@ export function readingsRouter(deps: AppDeps): Router {
       throw new AppError(422, 'import_rejected', 'Nothing was imported: some tests are already logged.', rowFields(result.duplicates));
     }
     // One alert check for the import's recent tests (server/jobs/alerts.ts); never throws.
-    await onReadingsImported(deps, tankId(req), checked.rows.map((r) => r.takenAt));
-    res.status(201).json({ imported: result.imported });
+    await onReadingsImported(deps, tankId(req), result.imported);
+    res.status(201).json({ imported: result.imported.length });
   });
 
   router.delete('/:readingId', async (req, res) => {

@@ -9,6 +9,7 @@ import type { Mailer } from '../mail/mailer.js';
 import { clubInviteMail } from '../mail/templates/club-invite.js';
 import { signUp } from './accounts.js';
 import { newLinkToken, sha256Hex } from './secret-tokens.js';
+import { returnedRows } from '../data-source.js';
 
 export const INVITE_VALID_DAYS = 7;
 export const INVALID_INVITE_MESSAGE = 'This invite link is not valid, was used already, or has expired. Ask the organizer for a new one.';
@@ -42,6 +43,9 @@ export async function createInvite(
   return { invite, send: () => mailer.send(input.email, content) };
 }
 
+/** An invite still waiting for an answer: not accepted, not revoked, not expired (the same rule as `liveInvite`). */
+const PENDING_SQL = 'used_at IS NULL AND revoked_at IS NULL AND expires_at > now()';
+
 async function liveInvite(ds: DataSource, token: string): Promise<ClubInvite | null> {
   const invite = await ds.getRepository(ClubInvite).findOneBy({ tokenHash: sha256Hex(token) });
   if (!invite || invite.usedAt || invite.revokedAt || invite.expiresAt.getTime() <= Date.now()) return null;
@@ -53,7 +57,7 @@ export async function listPendingInvites(ds: DataSource, clubId: string): Promis
   const rows: { id: string; email: string; invited_by: string | null; created_at: Date; expires_at: Date }[] = await ds.query(
     `SELECT i.id, i.email, u.display_name AS invited_by, i.created_at, i.expires_at
        FROM club_invites i LEFT JOIN users u ON u.id = i.invited_by
-      WHERE i.club_id = $1 AND i.used_at IS NULL AND i.revoked_at IS NULL AND i.expires_at > now()
+      WHERE i.club_id = $1 AND ${PENDING_SQL}
       ORDER BY i.created_at DESC, i.id`,
     [clubId],
   );
@@ -74,11 +78,11 @@ export async function listPendingInvites(ds: DataSource, clubId: string): Promis
 export async function revokeInvite(ds: DataSource, clubId: string, inviteId: string): Promise<void> {
   const result: unknown[] = await ds.query(
     `UPDATE club_invites SET revoked_at = now()
-      WHERE id = $1 AND club_id = $2 AND used_at IS NULL AND revoked_at IS NULL AND expires_at > now()
+      WHERE id = $1 AND club_id = $2 AND ${PENDING_SQL}
       RETURNING id`,
     [inviteId, clubId],
   );
-  const rows = (Array.isArray(result[0]) ? result[0] : result) as { id: string }[];
+  const rows = returnedRows<{ id: string }>(result);
   if (rows.length === 0) throw notFound('No such invite: it was answered, has expired, or was taken back already.');
 }
 
@@ -133,10 +137,10 @@ export async function acceptInvite(
   const joiningUserId = userId;
   const clubId = await ds.transaction(async (tx) => {
     const claimed: unknown[] = await tx.query(
-      `UPDATE club_invites SET used_at = now() WHERE token_hash = $1 AND used_at IS NULL AND revoked_at IS NULL AND expires_at > now() RETURNING club_id`,
+      `UPDATE club_invites SET used_at = now() WHERE token_hash = $1 AND ${PENDING_SQL} RETURNING club_id`,
       [sha256Hex(token)],
     );
-    const rows = (Array.isArray(claimed[0]) ? claimed[0] : claimed) as { club_id: string }[];
+    const rows = returnedRows<{ club_id: string }>(claimed);
     const id = rows[0]?.club_id;
     if (!id) throw notFound(INVALID_INVITE_MESSAGE);
     const memberships = tx.getRepository(ClubMembership);

@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import type { ClubRole } from '../../shared/schemas/auth.js';
-import type { LessonDetail, LessonStep, LessonSummary } from '../../shared/schemas/lesson.js';
+import type { z } from 'zod';
+import type { LessonDetail, LessonSummary, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
 import type { Scenario } from '../../shared/schemas/scenario.js';
 import { forbidden, notFound, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -80,15 +81,8 @@ export function canManageLesson(lesson: Lesson, membership: ClubMembership): boo
   return membership.role === 'organizer' || (membership.role === 'mentor' && lesson.authorId === membership.userId);
 }
 
-/** New words for a lesson (any of them); the scenario stays as it was built. */
-export interface LessonTextInput {
-  title?: string;
-  summary?: string;
-  steps?: LessonStep[];
-}
-
 /** The author or an organizer rewords a lesson; others in the club get 403 (they can read it). */
-export async function updateLessonText(ds: DataSource, lesson: Lesson, membership: ClubMembership, input: LessonTextInput): Promise<Lesson> {
+export async function updateLessonText(ds: DataSource, lesson: Lesson, membership: ClubMembership, input: z.output<typeof updateLessonTextSchema>): Promise<Lesson> {
   if (!canManageLesson(lesson, membership)) throw forbidden('Only the lesson’s author or an organizer can edit it.');
   const changes: Partial<Pick<Lesson, 'title' | 'summary' | 'steps'>> = {};
   if (input.title !== undefined) changes.title = input.title;

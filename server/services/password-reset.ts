@@ -9,6 +9,7 @@ import { passwordResetMail } from '../mail/templates/password-reset.js';
 import { assertPasswordNotCommon } from './accounts.js';
 import { hashPassword } from './passwords.js';
 import { endAllSessionsOf } from './sessions.js';
+import { returnedRows } from '../data-source.js';
 
 export const RESET_TOKEN_VALID_MINUTES = 60;
 /** At most this many reset e-mails per account per hour, so the form cannot flood an inbox. */
@@ -60,8 +61,7 @@ export async function resetPassword(ds: DataSource, token: string, password: str
         RETURNING user_id`,
       [sha256(token)],
     );
-    // TypeORM's postgres driver answers an UPDATE … RETURNING with [rows, affectedCount].
-    const rows = (Array.isArray(claimed[0]) ? claimed[0] : claimed) as { user_id: string }[];
+    const rows = returnedRows<{ user_id: string }>(claimed);
     const userId = rows[0]?.user_id;
     if (!userId) throw validationFailed({ token: INVALID_TOKEN_MESSAGE });
     const user = await tx.getRepository(User).findOneByOrFail({ id: userId });

@@ -67,11 +67,11 @@ export async function duplicateErrors(ds: Queryable, tankId: string, rows: reado
  * locked so two imports cannot interleave) that none is a duplicate. Returns the duplicates
  * instead of writing anything when there are some.
  */
-export async function importReadings(ds: DataSource, tankId: string, rows: readonly CsvRow[]): Promise<{ imported: number; duplicates: CsvRowError[] }> {
+export async function importReadings(ds: DataSource, tankId: string, rows: readonly CsvRow[]): Promise<{ imported: Reading[]; duplicates: CsvRowError[] }> {
   return ds.transaction(async (em) => {
     await em.query(`SELECT id FROM tanks WHERE id = $1 FOR UPDATE`, [tankId]);
     const duplicates = await duplicateErrors(em, tankId, rows);
-    if (duplicates.length > 0) return { imported: 0, duplicates };
+    if (duplicates.length > 0) return { imported: [], duplicates };
     const repo = em.getRepository(Reading);
     const entities = rows.map((r) =>
       repo.create({
@@ -86,7 +86,8 @@ export async function importReadings(ds: DataSource, tankId: string, rows: reado
       }),
     );
     // Chunked inserts keep each statement's parameter count well below PostgreSQL's limit.
+    // `insert` fills in each entity's generated id.
     for (let i = 0; i < entities.length; i += 500) await repo.insert(entities.slice(i, i + 500));
-    return { imported: entities.length, duplicates: [] };
+    return { imported: entities, duplicates: [] };
   });
 }
