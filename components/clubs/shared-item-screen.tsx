@@ -18,7 +18,7 @@ import { AppText, Heading } from '@/components/ui/text';
 import { Loading } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
 import { CautionsList } from '@/components/forecast/cautions-list';
-import { eventLine } from '@/components/share/event-line';
+import { describeEventOnDay } from '@/components/plans/event-fields';
 import { LessonFromPlanCard } from '@/components/lessons/lesson-from-plan-card';
 import { ROLE_LABEL } from './role-labels';
 
@@ -65,7 +65,7 @@ export function SharedItemScreen({ clubId, shareId }: { clubId: string; shareId:
             <Card style={{ gap: space.xs }} testID="shared-item-plan">
               <Heading level={2}>{`Plan from ${d.plan.startDate}`}</Heading>
               {d.plan.events.map((e, i) => (
-                <AppText key={i}>{eventLine(e)}</AppText>
+                <AppText key={i}>{describeEventOnDay(e)}</AppText>
               ))}
             </Card>
           ) : null}

@@ -14,7 +14,7 @@ import { Loading } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { LessonPlayer } from '@/components/lessons/lesson-player';
-import { eventLine } from './event-line';
+import { describeEventOnDay } from '@/components/plans/event-fields';
 
 /** The page behind a read-only share link: no account, no navigation into anyone's data. */
 export function SharedViewScreen({ token }: { token: string }) {
@@ -60,7 +60,7 @@ function SharedPlan({ view }: { view: Extract<SharedView, { itemType: 'plan' }> 
       <Card testID="shared-plan-events" style={{ gap: space.xs }}>
         <Heading level={2}>{`The plan (day 0 = ${view.plan.startDate})`}</Heading>
         {view.plan.events.map((e, i) => (
-          <AppText key={i}>{eventLine(e)}</AppText>
+          <AppText key={i}>{describeEventOnDay(e)}</AppText>
         ))}
       </Card>
       {chart ? (

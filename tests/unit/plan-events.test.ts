@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { addDays, planCheckDays } from '@/shared/plan-check-days';
 import { applySchedule, sortEvents } from '@/lib/draft-store';
-import { blankFields, describeEvent, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import { blankFields, describeEvent, describeEventOnDay, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
+import { EVENT_KINDS } from '@/components/plans/event-kinds';
+import { eventSchema, type ScenarioEvent } from '@/shared/schemas/scenario';
 
 const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: { species: 'neon-tetra', count, lengthCm: 3 } });
 const wc = (day: number): ScenarioEvent => ({ type: 'water-change', day, percent: 25 });
@@ -73,5 +74,36 @@ describe('event fields', () => {
 
   it('names catalogue fish by their common name', () => {
     expect(describeEvent(add(0, 4))).toBe('Add 4 Neon tetra');
+  });
+});
+
+describe('event kinds', () => {
+  it("has one record entry for every event type the engine's schema accepts", () => {
+    const engineTypes = eventSchema.options.map((o) => o.shape.type.value).sort();
+    expect(Object.keys(EVENT_KINDS).sort()).toEqual(engineTypes);
+  });
+
+  it("puts a medicine name error under the medicine field, not a fish field", () => {
+    const result = fieldsToEvent('medication', { ...blankFields('medication'), name: 'x'.repeat(81) });
+    expect(result).toEqual({ errors: { name: expect.any(String) } });
+  });
+
+  it('says the day in read-only lists', () => {
+    expect(describeEventOnDay(wc(3))).toBe('Day 3: Change 25 % of the water');
+  });
+
+  it('describes every kind in a sentence that starts with a capital letter', () => {
+    const samples: ScenarioEvent[] = [
+      add(2, 6),
+      { type: 'ammonia-dose', day: 0, amount: { unit: 'ammonium-chloride-g', grams: 0.5 }, repeatEveryDays: 2, repeatCount: 5 },
+      { type: 'filter-clean', day: 6, zoneId: 'filter', action: 'replace', shareLost: 0.9 },
+      { type: 'aeration-loss', day: 1, durationDays: 1, oxygenShare: 0.5 },
+    ];
+    expect(samples.map(describeEvent)).toEqual([
+      'Add 6 Neon tetra',
+      'Dose ammonia 0.5 g ammonium chloride, every 2 days, 5 times',
+      'Replace filter media (about 90 % of its nitrifiers lost)',
+      'Aeration drops to 50 % for 1 day',
+    ]);
   });
 });

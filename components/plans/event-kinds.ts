@@ -1,0 +1,190 @@
+/**
+ * Every kind of plan event, once, on the client side: its label, the text fields its form
+ * shows, its blank form, how an event becomes form text and back, and its sentence. The
+ * record is typed over every engine event type, so a new kind that is missing here does not
+ * compile (pure, no React Native).
+ */
+import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import { findSpecies } from '@/simulation/catalogue';
+import { parseDecimal } from '@/lib/units-format';
+
+export type EventType = ScenarioEvent['type'];
+export type EventOf<T extends EventType> = Extract<ScenarioEvent, { type: T }>;
+export type EventFields = Record<string, string>;
+
+export interface FieldSpec {
+  key: string;
+  label: string;
+  hint?: string;
+  numeric: boolean;
+}
+
+export interface EventKind<T extends EventType> {
+  label: string;
+  /** The form's fields after the day, in order. */
+  fields: readonly FieldSpec[];
+  /** A new event's starting text (the day is added by the caller). */
+  blank: EventFields;
+  toFields(e: EventOf<T>): EventFields;
+  /** Form text → the raw event the engine's schema then checks (the day is added by the caller). */
+  fromFields(f: EventFields): Record<string, unknown>;
+  /** Schema paths of this kind that belong to a differently named form field. */
+  pathToField?: Record<string, string>;
+  /** The event in a sentence, e.g. "Add 4 Neon tetra". */
+  sentence(e: EventOf<T>): string;
+}
+
+export const DAY_FIELD: FieldSpec = { key: 'day', label: 'Day', hint: 'Days from the plan start (0 = the first day)', numeric: true };
+const SPECIES: FieldSpec = { key: 'species', label: 'Species', hint: 'A catalogue species, e.g. neon-tetra, or your own name', numeric: false };
+const COUNT: FieldSpec = { key: 'count', label: 'How many', numeric: true };
+const LASTS: FieldSpec = { key: 'durationDays', label: 'Lasts (days)', numeric: true };
+
+const text = (x: number | string | undefined) => (x === undefined ? '' : String(x));
+const percentText = (share: number) => text(Math.round(share * 100));
+const days = (n: number) => (n === 1 ? '1 day' : `${n} days`);
+
+/** Typed text → number; empty → undefined; unreadable → NaN (the schema then names the field). */
+export function num(t: string | undefined): number | undefined {
+  const v = parseDecimal(t ?? '');
+  return v === null ? undefined : v;
+}
+
+/** Typed percent → share of 1. */
+function share(t: string | undefined): number | undefined {
+  const v = num(t);
+  return v === undefined ? undefined : v / 100;
+}
+
+/** A typed fish name: a catalogue id when it is one, else the keeper's own name. */
+function fishFromFields(f: EventFields): { species?: string; name?: string; count?: number; lengthCm?: number } {
+  const name = (f.species ?? '').trim();
+  const known = findSpecies(name);
+  return { species: known ? name : undefined, name: known ? undefined : name || undefined, count: num(f.count), lengthCm: num(f.lengthCm) };
+}
+
+/** A fish as a keeper reads it: the catalogue's common name, else the keeper's own. */
+export function fishName(id: string | undefined, name: string | undefined): string {
+  if (id) return findSpecies(id)?.commonName ?? id;
+  return name ?? 'fish';
+}
+
+const FISH_PATHS = { 'fish.count': 'count', 'fish.lengthCm': 'lengthCm', 'fish.species': 'species', 'fish.name': 'species', 'fish.massG': 'lengthCm' };
+
+export const EVENT_KINDS: { readonly [T in EventType]: EventKind<T> } = {
+  'add-fish': {
+    label: 'Add fish',
+    fields: [SPECIES, COUNT, { key: 'lengthCm', label: 'Length (cm)', hint: 'Optional for catalogue species', numeric: true }],
+    blank: { species: '', count: '' },
+    toFields: (e) => ({ species: e.fish.species ?? e.fish.name ?? '', count: text(e.fish.count), lengthCm: text(e.fish.lengthCm) }),
+    fromFields: (f) => ({ fish: fishFromFields(f) }),
+    pathToField: FISH_PATHS,
+    sentence: (e) => `Add ${e.fish.count} ${fishName(e.fish.species, e.fish.name)}`,
+  },
+  'remove-fish': {
+    label: 'Rehome fish',
+    fields: [SPECIES, COUNT],
+    blank: { species: '', count: '' },
+    toFields: (e) => ({ species: e.species ?? e.name ?? '', count: text(e.count) }),
+    fromFields: (f) => {
+      const fish = fishFromFields(f);
+      return { species: fish.species, name: fish.name, count: fish.count };
+    },
+    pathToField: { name: 'species' },
+    sentence: (e) => `Rehome ${e.count} ${fishName(e.species, e.name)}`,
+  },
+  'move-fish': {
+    label: 'Move fish',
+    fields: [{ key: 'direction', label: 'Direction', hint: 'in or out', numeric: false }, SPECIES, COUNT, { key: 'otherTank', label: 'Other tank', numeric: false }],
+    blank: { direction: 'in', species: '', count: '' },
+    toFields: (e) => ({ direction: e.direction, species: e.fish.species ?? e.fish.name ?? '', count: text(e.fish.count), otherTank: e.otherTank ?? '' }),
+    fromFields: (f) => ({ direction: (f.direction ?? '').trim(), otherTank: f.otherTank?.trim() || undefined, fish: fishFromFields(f) }),
+    pathToField: FISH_PATHS,
+    sentence: (e) => `Move ${e.fish.count} ${fishName(e.fish.species, e.fish.name)} ${e.direction === 'in' ? 'in from' : 'out to'} ${e.otherTank || 'another tank'}`,
+  },
+  feeding: {
+    label: 'Feeding',
+    fields: [{ key: 'gramsPerDay', label: 'Food a day (g)', numeric: true }],
+    blank: {},
+    toFields: (e) => ({ gramsPerDay: e.feeding.mode === 'grams' ? text(e.feeding.gramsPerDay) : '' }),
+    fromFields: (f) => ({ feeding: { mode: 'grams', gramsPerDay: num(f.gramsPerDay) } }),
+    pathToField: { 'feeding.gramsPerDay': 'gramsPerDay' },
+    sentence: (e) => (e.feeding.mode === 'grams' ? `Feed ${e.feeding.gramsPerDay} g a day` : 'Feed by body mass'),
+  },
+  'water-change': {
+    label: 'Water change',
+    fields: [{ key: 'percent', label: 'Water changed (%)', numeric: true }],
+    blank: { percent: '25' },
+    toFields: (e) => ({ percent: text(e.percent) }),
+    fromFields: (f) => ({ percent: num(f.percent) }),
+    sentence: (e) => `Change ${e.percent} % of the water`,
+  },
+  'ammonia-dose': {
+    label: 'Ammonia dose',
+    fields: [
+      { key: 'mgNPerL', label: 'Dose (mg N/L)', hint: 'Ammonia as nitrogen per litre of tank water', numeric: true },
+      { key: 'repeatEveryDays', label: 'Repeat every (days)', hint: 'Leave empty for one dose', numeric: true },
+      { key: 'repeatCount', label: 'Doses in all', numeric: true },
+    ],
+    blank: { mgNPerL: '1', repeatEveryDays: '', repeatCount: '' },
+    toFields: (e) => ({ mgNPerL: e.amount.unit === 'mgN-per-L' ? text(e.amount.value) : '', repeatEveryDays: text(e.repeatEveryDays), repeatCount: text(e.repeatCount) }),
+    fromFields: (f) => ({ amount: { unit: 'mgN-per-L', value: num(f.mgNPerL) }, repeatEveryDays: num(f.repeatEveryDays), repeatCount: num(f.repeatCount) }),
+    pathToField: { 'amount.value': 'mgNPerL' },
+    sentence: (e) => {
+      const a = e.amount;
+      const dose = a.unit === 'mgN-per-L' ? `${a.value} mg N/L` : a.unit === 'ammonium-chloride-g' ? `${a.grams} g ammonium chloride` : `${a.mL} mL ammonia solution`;
+      const times = e.repeatEveryDays && (e.repeatCount ?? 1) > 1 ? `, every ${e.repeatEveryDays === 1 ? 'day' : days(e.repeatEveryDays)}, ${e.repeatCount} times` : '';
+      return `Dose ammonia ${dose}${times}`;
+    },
+  },
+  'filter-clean': {
+    label: 'Media rinse',
+    fields: [
+      { key: 'zoneId', label: 'Where', hint: 'filter, substrate or surfaces', numeric: false },
+      { key: 'action', label: 'Rinse or replace', hint: 'rinse or replace', numeric: false },
+      { key: 'percentLost', label: 'Nitrifiers lost (%)', numeric: true },
+    ],
+    blank: { zoneId: 'filter', action: 'rinse', percentLost: '30' },
+    toFields: (e) => ({ zoneId: e.zoneId, action: e.action, percentLost: percentText(e.shareLost) }),
+    fromFields: (f) => ({ zoneId: (f.zoneId ?? '').trim() || 'filter', action: (f.action ?? '').trim(), shareLost: share(f.percentLost) }),
+    pathToField: { shareLost: 'percentLost' },
+    sentence: (e) => `${e.action === 'rinse' ? 'Rinse' : 'Replace'} ${e.zoneId} media (about ${Math.round(e.shareLost * 100)} % of its nitrifiers lost)`,
+  },
+  medication: {
+    label: 'Medication',
+    fields: [
+      { key: 'name', label: 'Medicine', numeric: false },
+      LASTS,
+      { key: 'activityPercent', label: 'Nitrifier activity left (%)', hint: '100 = harmless to the biofilter, 0 = stops it', numeric: true },
+    ],
+    blank: { durationDays: '5', activityPercent: '50' },
+    toFields: (e) => ({ name: e.name ?? '', durationDays: text(e.durationDays), activityPercent: percentText(e.oxidationMultiplier) }),
+    fromFields: (f) => ({ name: f.name?.trim() || undefined, durationDays: num(f.durationDays), oxidationMultiplier: share(f.activityPercent) }),
+    pathToField: { oxidationMultiplier: 'activityPercent' },
+    sentence: (e) => `Medicate${e.name ? ` with ${e.name}` : ''} for ${days(e.durationDays)}`,
+  },
+  temperature: {
+    label: 'Temperature',
+    fields: [{ key: 'temperatureC', label: 'New temperature (°C)', numeric: true }],
+    blank: {},
+    toFields: (e) => ({ temperatureC: text(e.temperatureC) }),
+    fromFields: (f) => ({ temperatureC: num(f.temperatureC) }),
+    sentence: (e) => `Set the temperature to ${e.temperatureC} °C`,
+  },
+  'aeration-loss': {
+    label: 'Aeration loss',
+    fields: [LASTS, { key: 'oxygenPercent', label: 'Oxygen left (%)', numeric: true }],
+    blank: { durationDays: '1', oxygenPercent: '50' },
+    toFields: (e) => ({ durationDays: text(e.durationDays), oxygenPercent: percentText(e.oxygenShare) }),
+    fromFields: (f) => ({ durationDays: num(f.durationDays), oxygenShare: share(f.oxygenPercent) }),
+    pathToField: { oxygenShare: 'oxygenPercent' },
+    sentence: (e) => `Aeration drops to ${Math.round(e.oxygenShare * 100)} % for ${days(e.durationDays)}`,
+  },
+};
+
+/**
+ * The record entry for an event's kind. TypeScript cannot tie a union member's tag to its
+ * entry in a mapped record, so the one cast lives here.
+ */
+export function kindFor(e: ScenarioEvent): EventKind<EventType> {
+  return EVENT_KINDS[e.type] as unknown as EventKind<EventType>;
+}
