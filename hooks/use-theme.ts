@@ -53,9 +53,14 @@ export function buildTheme(scheme: ColorSchemeName, appFontActive: boolean): The
 /** Whether the bundled font is active; set by ThemeProvider from `useFonts`. */
 export const FontStatusContext = createContext(false);
 
-/** Scheme follows the system setting; anything but "dark" reads as light. */
+/** A fixed scheme for part of the tree (the printable plan is always light: it is for paper). */
+export const SchemeOverrideContext = createContext<ColorSchemeName | null>(null);
+
+/** Scheme follows the system setting unless a parent fixes it; anything but "dark" reads as light. */
 export function useSchemeName(): ColorSchemeName {
-  return useColorScheme() === 'dark' ? 'dark' : 'light';
+  const fixed = useContext(SchemeOverrideContext);
+  const system = useColorScheme() === 'dark' ? 'dark' : 'light';
+  return fixed ?? system;
 }
 
 // Four possible themes: built once so consumers get stable objects.

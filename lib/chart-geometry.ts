@@ -172,3 +172,60 @@ export function indexAtX(px: number, g: Pick<PanelGeometry, 'plot' | 'xDomain'>,
   for (let i = 1; i < days.length; i++) if (Math.abs(days[i] - target) < Math.abs(days[best] - target)) best = i;
   return best;
 }
+
+// ---- event markers ----------------------------------------------------------------------
+
+/** A plan event to mark on the time axis: its day and its sentence ("Add 12 Neon tetra"). */
+export interface ChartEvent {
+  day: number;
+  label: string;
+}
+
+/** One numbered marker: every event of one whole day, at that day's x. */
+export interface EventMarker {
+  /** 1, 2, 3… in day order; the legend repeats the number. */
+  n: number;
+  day: number;
+  x: number;
+  /** 0 or 1: markers closer than `minGapPx` alternate rows so their numbers never overlap. */
+  row: 0 | 1;
+  labels: string[];
+}
+
+/** Room above the plot for two rows of marker numbers, px. */
+export const MARKER_STRIP = 30;
+
+/** The padding of a panel that carries event markers: the default with the marker strip on top. */
+export function markedPadding(hasMarkers: boolean): NonNullable<PanelSize['padding']> {
+  return hasMarkers ? { ...DEFAULT_PADDING, top: DEFAULT_PADDING.top + MARKER_STRIP - 8 } : DEFAULT_PADDING;
+}
+
+/**
+ * Markers for the events inside the chart's days (events past either end are left out):
+ * one per whole day, numbered in day order, with the x of that day.
+ */
+export function eventMarkers(events: readonly ChartEvent[], g: Pick<PanelGeometry, 'plot' | 'xDomain'>, minGapPx = 16): EventMarker[] {
+  const byDay = new Map<number, string[]>();
+  for (const e of events) {
+    if (!finite(e.day)) continue;
+    const d = Math.round(e.day);
+    if (d < g.xDomain[0] || d > g.xDomain[1]) continue;
+    byDay.set(d, [...(byDay.get(d) ?? []), e.label]);
+  }
+  const x = scaleLinear().domain(g.xDomain).range([g.plot.left, g.plot.right]);
+  const out: EventMarker[] = [];
+  const lastX: [number, number] = [-Infinity, -Infinity];
+  for (const [day, labels] of [...byDay.entries()].sort((a, b) => a[0] - b[0])) {
+    const px = x(day);
+    // The top row when there is room; else the second; else whichever row leaves more room.
+    const row: 0 | 1 = px - lastX[0] >= minGapPx ? 0 : px - lastX[1] >= minGapPx ? 1 : lastX[0] <= lastX[1] ? 0 : 1;
+    lastX[row] = px;
+    out.push({ n: out.length + 1, day, x: px, row, labels });
+  }
+  return out;
+}
+
+/** A marker's legend line: "day 7: Add 12 Neon tetra; Change 25 % of the water". */
+export function markerLegend(m: Pick<EventMarker, 'day' | 'labels'>): string {
+  return `day ${m.day}: ${m.labels.join('; ')}`;
+}

@@ -8,7 +8,10 @@ import { nitrogenIn, nitrogenUnit } from '@/lib/units-format';
 import { plainNumber } from '@/shared/forecast-view';
 import type { PanelLimit, PanelSeries } from '@/lib/chart-geometry';
 
-export type PanelKey = 'ammonia-nitrite' | 'free-ammonia' | 'nitrate' | 'capacity';
+export type PanelKey = 'ammonia' | 'nitrite' | 'free-ammonia' | 'nitrate' | 'capacity';
+
+/** The panels shown first (and printed): the two values a keeper tests during a change. */
+export const MAIN_PANELS: readonly PanelKey[] = ['ammonia', 'nitrite'];
 
 export interface ForecastPanel {
   key: PanelKey;
@@ -22,27 +25,33 @@ export interface ForecastPanel {
 type Spread = { p10: number[]; p90: number[] } | undefined;
 const band = (b: Spread, f: (x: number) => number) => (b ? { lo: b.p10.map(f), hi: b.p90.map(f) } : undefined);
 
-/** Panels for a forecast; the band is drawn only when `showBand` (it belongs to the saved plan). */
+/**
+ * Panels for a forecast; the band is drawn only when `showBand` (it belongs to the saved plan).
+ * Total ammonia and nitrite each get their own scale: nitrite's limit is a tenth of ammonia's
+ * peak in a typical change, and on a shared axis it would read as a flat line.
+ */
 export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand = true): ForecastPanel[] {
   const tan = (x: number) => nitrogenIn(x, 'tanMgN', basis);
   const no2 = (x: number) => nitrogenIn(x, 'no2MgN', basis);
   const no3 = (x: number) => nitrogenIn(x, 'no3MgN', basis);
   const b = showBand ? v.band : null;
-  const sameUnit = basis === 'N';
   return [
     {
-      key: 'ammonia-nitrite',
-      title: 'Total ammonia and nitrite',
-      unit: sameUnit ? 'mg/L as N' : 'mg/L (NH4+, NO2−)',
-      series: [
-        { key: 'tan', label: 'Total ammonia', values: v.tanMgN.map(tan), band: band(b?.tanMgN, tan) },
-        { key: 'no2', label: 'Nitrite', values: v.no2MgN.map(no2), band: band(b?.no2MgN, no2) },
-      ],
-      limits: [
-        { key: 'tanChronic', value: tan(v.limits.tanChronicMgN), label: `ammonia limit ${plainNumber(tan(v.limits.tanChronicMgN))}` },
-        { key: 'no2', value: no2(v.limits.no2MgN), label: `nitrite limit ${plainNumber(no2(v.limits.no2MgN))}` },
-      ],
+      key: 'ammonia',
+      title: 'Total ammonia',
+      unit: nitrogenUnit('tanMgN', basis),
+      series: [{ key: 'tan', label: 'Total ammonia', values: v.tanMgN.map(tan), band: band(b?.tanMgN, tan) }],
+      limits: [{ key: 'tanChronic', value: tan(v.limits.tanChronicMgN), label: `limit ${plainNumber(tan(v.limits.tanChronicMgN))}` }],
       minYMax: 0.2,
+    },
+    {
+      key: 'nitrite',
+      title: 'Nitrite',
+      unit: nitrogenUnit('no2MgN', basis),
+      series: [{ key: 'no2', label: 'Nitrite', values: v.no2MgN.map(no2), band: band(b?.no2MgN, no2) }],
+      limits: [{ key: 'no2', value: no2(v.limits.no2MgN), label: `limit ${plainNumber(no2(v.limits.no2MgN))}` }],
+      // The limit line itself sets the scale when nitrite stays low (yDomainFor includes limits).
+      minYMax: no2(v.limits.no2MgN) * 0.5,
     },
     {
       key: 'free-ammonia',
@@ -62,12 +71,12 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
     },
     {
       key: 'capacity',
-      title: 'Biofilter capacity and load',
-      unit: 'mg N/day',
+      title: 'What the filter can clear, and what the fish put in',
+      unit: 'mg N a day',
       series: [
-        { key: 'ao', label: 'Ammonia-eating capacity', values: v.aoMgNPerDay },
-        { key: 'no', label: 'Nitrite-eating capacity', values: v.noMgNPerDay },
-        { key: 'load', label: 'Ammonia from fish', values: v.loadMgNPerDay },
+        { key: 'ao', label: 'Ammonia the filter can clear', values: v.aoMgNPerDay },
+        { key: 'no', label: 'Nitrite the filter can clear', values: v.noMgNPerDay },
+        { key: 'load', label: 'Ammonia from fish and food', values: v.loadMgNPerDay },
       ],
       limits: [],
       minYMax: 1,

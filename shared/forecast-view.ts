@@ -6,6 +6,8 @@
 import type { Forecast } from '../simulation/forecast';
 import type { EnsembleBand } from '../simulation/advice/ensemble';
 import type { ForecastView } from './schemas/plan';
+import type { LimitLevel } from './schemas/tank';
+import { levelFor } from './tank-status';
 
 /** Values kept to 4 significant digits: well inside any test kit's resolution, half the JSON. */
 export function round4(x: number): number {
@@ -66,22 +68,89 @@ export const START_SENTENCES: Record<'given' | 'mature-present-load' | 'new-unse
   'new-no-fish': 'Starts with hardly any nitrifiers: the tank holds no fish, so nothing is known to have fed its biofilter.',
 };
 
+/** The four limits a forecast is checked against, in the order they are reported. */
+export const FORECAST_LIMIT_KEYS = ['freeNh3', 'tanChronic', 'tanAcute', 'no2'] as const;
+export type ForecastLimitKey = (typeof FORECAST_LIMIT_KEYS)[number];
+
+const LIMIT_NAME: Record<ForecastLimitKey, string> = {
+  freeNh3: 'free ammonia',
+  tanChronic: 'total ammonia (long-term limit)',
+  tanAcute: 'total ammonia (short-term limit)',
+  no2: 'nitrite',
+};
+/** What each limit watches, as the headline names it (both ammonia limits watch total ammonia). */
+const LIMIT_SUBJECT: Record<ForecastLimitKey, string> = { freeNh3: 'free ammonia', tanChronic: 'total ammonia', tanAcute: 'total ammonia', no2: 'nitrite' };
+
+export interface LimitCrossing {
+  key: ForecastLimitKey;
+  days: number;
+  firstDay: number;
+}
+
+/** The forecast's one judgement: each limit it goes over, for how long and from which day. */
+export function limitCrossings(v: ForecastView): LimitCrossing[] {
+  return FORECAST_LIMIT_KEYS.filter((k) => v.daysOver[k].days > 0).map((k) => ({ key: k, days: v.daysOver[k].days, firstDay: v.daysOver[k].firstDay ?? 0 }));
+}
+
+const limitText = (v: ForecastView, k: ForecastLimitKey) =>
+  k === 'freeNh3' ? `${plainNumber(v.limits.freeNh3MgNH3)} mg NH3/L` : `${plainNumber(v.limits[k === 'no2' ? 'no2MgN' : k === 'tanChronic' ? 'tanChronicMgN' : 'tanAcuteMgN'])} mg N/L`;
+
 /** The chart in sentences: peaks with their days, and time over each limit (mg/L as N). */
 export function forecastSentences(v: ForecastView): string[] {
   const out = [
     `Total ammonia peaks at ${plainNumber(v.peaks.tan.value)} mg N/L on ${dayWord(v.peaks.tan.day)}; free ammonia at ${plainNumber(v.peaks.freeNh3.value)} mg NH3/L.`,
     `Nitrite peaks at ${plainNumber(v.peaks.no2.value)} mg N/L on ${dayWord(v.peaks.no2.day)}; nitrate reaches ${plainNumber(v.peaks.no3.value)} mg N/L.`,
   ];
-  const over: [string, { days: number; firstDay: number | null }, string][] = [
-    ['free ammonia', v.daysOver.freeNh3, `${plainNumber(v.limits.freeNh3MgNH3)} mg NH3/L`],
-    ['total ammonia (long-term limit)', v.daysOver.tanChronic, `${plainNumber(v.limits.tanChronicMgN)} mg N/L`],
-    ['total ammonia (short-term limit)', v.daysOver.tanAcute, `${plainNumber(v.limits.tanAcuteMgN)} mg N/L`],
-    ['nitrite', v.daysOver.no2, `${plainNumber(v.limits.no2MgN)} mg N/L`],
-  ];
-  const crossings = over.filter(([, e]) => e.days > 0);
+  const crossings = limitCrossings(v);
   if (crossings.length === 0) out.push('Nothing goes over its limit in this forecast.');
-  for (const [name, e, limit] of crossings) {
-    out.push(`${name[0].toUpperCase()}${name.slice(1)} is over its limit (${limit}) for ${daysWord(e.days)}, from ${dayWord(e.firstDay ?? 0)}.`);
+  for (const c of crossings) {
+    const name = LIMIT_NAME[c.key];
+    out.push(`${name[0].toUpperCase()}${name.slice(1)} is over its limit (${limitText(v, c.key)}) for ${daysWord(c.days)}, from ${dayWord(c.firstDay)}.`);
   }
   return out;
+}
+
+export type ForecastLevel = LimitLevel;
+
+export interface ForecastVerdict {
+  level: ForecastLevel;
+  /** One plain sentence for the top of a forecast. */
+  sentence: string;
+}
+
+const joinWords = (xs: readonly string[]) => (xs.length <= 1 ? (xs[0] ?? '') : `${xs.slice(0, -1).join(', ')} and ${xs[xs.length - 1]}`);
+const capital = (s: string) => `${s[0].toUpperCase()}${s.slice(1)}`;
+
+/**
+ * The forecast in one sentence, from the same judgement as `forecastSentences`: over when a
+ * limit is crossed; "watch" when a peak reaches the share of its limit a water test is
+ * flagged at (shared/tank-status.ts `levelFor`); otherwise under every limit.
+ */
+export function forecastVerdict(v: ForecastView): ForecastVerdict {
+  const crossings = limitCrossings(v);
+  if (crossings.length > 0) {
+    const subjects = [...new Set(crossings.map((c) => LIMIT_SUBJECT[c.key]))];
+    const first = Math.min(...crossings.map((c) => c.firstDay));
+    const longest = Math.max(...crossings.map((c) => c.days));
+    const one = subjects.length === 1;
+    return {
+      level: 'over',
+      sentence: `${capital(joinWords(subjects))} would go over ${one ? 'its limit' : 'their limits'} from ${dayWord(first)}, for ${one ? '' : 'up to '}${daysWord(longest)}: too much for the fish as planned.`,
+    };
+  }
+  const near = (
+    [
+      ['total ammonia', v.peaks.tan, v.limits.tanChronicMgN],
+      ['free ammonia', v.peaks.freeNh3, v.limits.freeNh3MgNH3],
+      ['nitrite', v.peaks.no2, v.limits.no2MgN],
+    ] as const
+  ).filter(([, peak, limit]) => levelFor(peak.value, limit) === 'watch');
+  if (near.length > 0) {
+    const first = Math.min(...near.map(([, peak]) => peak.day));
+    return {
+      level: 'watch',
+      sentence: `Stays under every limit, but ${joinWords(near.map(([name]) => name))} ${near.length === 1 ? 'comes' : 'come'} close around ${dayWord(first)}: test on the check days.`,
+    };
+  }
+  return { level: 'ok', sentence: 'Stays well under every limit in this forecast.' };
 }

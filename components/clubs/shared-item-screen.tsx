@@ -6,6 +6,7 @@ import { forecastParsed } from '@/simulation/forecast';
 import { useAddComment, useClub, useSharedItem } from '@/hooks/use-clubs';
 import { useFormState } from '@/hooks/use-form-state';
 import { useTheme } from '@/hooks/use-theme';
+import { usePreferences } from '@/hooks/use-preferences';
 import { formErrorsFromRequest, NO_FORM_ERRORS, validateForm } from '@/lib/form-errors';
 import { formatLitres, shortDate } from '@/lib/format';
 import { Screen } from '@/components/ui/screen';
@@ -17,6 +18,7 @@ import { TextLink } from '@/components/ui/text-link';
 import { AppText, Heading } from '@/components/ui/text';
 import { Loading } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
+import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { describeEventOnDay } from '@/components/plans/event-fields';
 import { LessonFromPlanCard } from '@/components/lessons/lesson-from-plan-card';
@@ -27,6 +29,7 @@ export function SharedItemScreen({ clubId, shareId }: { clubId: string; shareId:
   const { space } = useTheme();
   const item = useSharedItem(clubId, shareId);
   const club = useClub(clubId);
+  const prefs = usePreferences();
   const add = useAddComment(clubId, shareId);
   const { values, setValue, errors, setErrors } = useFormState({ body: '' });
   const chart = useMemo(() => {
@@ -72,7 +75,8 @@ export function SharedItemScreen({ clubId, shareId }: { clubId: string; shareId:
           {chart ? (
             <Card style={{ gap: space.md }}>
               <Heading level={2}>Forecast</Heading>
-              <ForecastChart view={chart} basis="N" showBand={false} testID="shared-item-chart" />
+              <ForecastVerdict view={chart} basis={prefs.nitrogenBasis} testID="shared-item-summary" />
+              <ForecastChart view={chart} basis={prefs.nitrogenBasis} showBand={false} events={d.plan?.events} testID="shared-item-chart" />
             </Card>
           ) : null}
           {d.share.itemType === 'plan' ? (

@@ -8,6 +8,7 @@ import { useTheme } from '@/hooks/use-theme';
 import { Banner } from '@/components/ui/banner';
 import { AppText } from '@/components/ui/text';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
+import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
 import { ChoiceGroup } from '@/components/settings/choice-group';
 
 export type PreviewInput = { ok: true; scenario: ScenarioInput; stagedScenario?: ScenarioInput } | { ok: false };
@@ -60,7 +61,12 @@ export function LessonBuilderPreview({ input }: { input: PreviewInput }) {
           choices={runs.map((x) => ({ value: x.key, label: x.name }))}
         />
       ) : null}
-      {charted.r.view ? <ForecastChart view={charted.r.view} basis="N" showBand={false} testID={`lesson-preview-chart-${charted.key}`} /> : null}
+      {charted.r.view ? (
+        <>
+          <ForecastVerdict view={charted.r.view} basis="N" compact testID={`lesson-preview-verdict-${charted.key}`} />
+          <ForecastChart view={charted.r.view} basis="N" showBand={false} testID={`lesson-preview-chart-${charted.key}`} />
+        </>
+      ) : null}
     </View>
   );
 }

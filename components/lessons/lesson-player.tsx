@@ -13,6 +13,7 @@ import { Card } from '@/components/ui/card';
 import { Banner } from '@/components/ui/banner';
 import { AppText, Heading } from '@/components/ui/text';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
+import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { GuessChart } from './guess-chart';
 import { scoreGuess, shortValue, type PeakPoint } from './guess-score';
@@ -102,7 +103,8 @@ export function LessonPlayer({ lesson }: { lesson: LessonContent }) {
             <Card key={key} testID={`lesson-forecast-${key}`} style={{ gap: space.md, flex: wide && result.staged ? 1 : undefined, minWidth: 0 }}>
               <Heading level={2}>{scenario.name ?? 'Forecast'}</Heading>
               <AppText testID={`lesson-peak-${key}`}>{`Nitrite peaks on day ${r.no2Peak.day} at ${shortValue(r.no2Peak.value)} mg/L as N; ${overLimitText(r.view.daysOver.no2.days)}.`}</AppText>
-              <ForecastChart view={r.view} basis="N" showBand={false} testID={`lesson-chart-${key}`} />
+              <ForecastVerdict view={r.view} basis="N" compact testID={`lesson-summary-${key}`} />
+              <ForecastChart view={r.view} basis="N" showBand={false} events={scenario.events} testID={`lesson-chart-${key}`} />
             </Card>
           ))}
         </View>

@@ -25,7 +25,7 @@ import { StatusPill } from '@/components/ui/status-pill';
 import { AppText, Heading } from '@/components/ui/text';
 import { Loading, LoadError } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
-import { ForecastSummary } from '@/components/forecast/forecast-summary';
+import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { planStatusLabel } from '@/components/tanks/tank-labels';
 import { AdvicePanel } from '@/components/plans/advice-panel';
@@ -180,27 +180,28 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
     </View>
   );
 
+  // The verdict first, then the chart; what the chart draws and where it starts from below it.
   const forecastCard = (
       <Card testID="plan-forecast">
         <Heading level={2}>Forecast</Heading>
-        <AppText variant="caption" tone="textMuted" testID="forecast-source">
-          {shownFromServer
-            ? `Saved plan${server.data!.cached ? ' (from the forecast store)' : ''}. Shaded: where 8 in 10 plausible forecasts fall. Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`
-            : `Live forecast of your unsaved changes (no uncertainty band until you save). Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`}
-        </AppText>
-        {shownFromServer ? <AppText testID="forecast-start">{START_SENTENCES[server.data!.startReason]}</AppText> : null}
         {live.fields && !shownFromServer ? (
           <Banner tone="watch" title="The forecast cannot run yet" message={Object.entries(live.fields).map(([k, v]) => `${k}: ${v}`).join(' ')} testID="forecast-refused" />
         ) : null}
         {server.isError && !dirty ? <Banner tone="watch" title="No saved forecast" message={server.error.message} testID="forecast-server-error" /> : null}
         {view ? (
           <>
-            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} />
-            <ForecastSummary view={view} basis={prefs.nitrogenBasis} />
+            <ForecastVerdict view={view} basis={prefs.nitrogenBasis} />
+            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} events={events} />
           </>
         ) : (
           <Loading label="Running the forecast…" testID="forecast-loading" />
         )}
+        <AppText variant="caption" tone="textMuted" testID="forecast-source">
+          {shownFromServer
+            ? `Saved plan. Shaded: where 8 in 10 likely forecasts fall. Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`
+            : `Live forecast of your unsaved changes (no shading until you save). Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`}
+        </AppText>
+        {shownFromServer ? <AppText variant="caption" tone="textMuted" testID="forecast-start">{START_SENTENCES[server.data!.startReason]}</AppText> : null}
       </Card>
   );
   const adviceCard = (

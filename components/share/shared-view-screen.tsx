@@ -12,6 +12,7 @@ import { BrandMark } from '@/components/ui/brand-mark';
 import { AppText, Heading } from '@/components/ui/text';
 import { Loading } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
+import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { LessonPlayer } from '@/components/lessons/lesson-player';
 import { describeEventOnDay } from '@/components/plans/event-fields';
@@ -66,7 +67,8 @@ function SharedPlan({ view }: { view: Extract<SharedView, { itemType: 'plan' }> 
       {chart ? (
         <Card style={{ gap: space.md }}>
           <Heading level={2}>Forecast</Heading>
-          <ForecastChart view={chart} basis="N" showBand={false} testID="shared-chart" />
+          <ForecastVerdict view={chart} basis="N" testID="shared-summary" />
+          <ForecastChart view={chart} basis="N" showBand={false} events={view.plan.events} testID="shared-chart" />
         </Card>
       ) : (
         <Banner tone="watch" title="No forecast for this plan" message="The plan could not be forecast as it stands." />
