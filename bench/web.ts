@@ -51,7 +51,7 @@ async function redraw(baseUrl: string): Promise<void> {
     await page.getByTestId('tank-list').waitFor();
     await page.goto(`${baseUrl}/plans`);
     await page.getByTestId('plans-list').locator('[data-testid^="plans-item-"]').first().click();
-    await page.locator('[data-testid="chart-panel-ammonia-nitrite"] svg path').first().waitFor({ timeout: 30_000 });
+    await page.locator('[data-testid="chart-panel-ammonia"] svg path').first().waitFor({ timeout: 30_000 });
     const slider = page.getByTestId('fish-count-slider');
     await slider.scrollIntoViewIfNeeded();
     const box = (await slider.boundingBox())!;

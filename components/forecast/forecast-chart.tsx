@@ -9,6 +9,7 @@ import { forecastPanels, MAIN_PANELS, type ForecastPanel, type PanelKey } from '
 import type { ScenarioEvent } from '@/shared/schemas/scenario';
 import { describeEvent } from '@/components/plans/event-fields';
 import { Button } from '@/components/ui/button';
+import { PrintHint } from '@/components/ui/print-hint';
 import type { ForecastView } from '@/shared/schemas/plan';
 import type { NitrogenBasis } from '@/shared/schemas/preferences';
 import { AppText } from '@/components/ui/text';
@@ -55,7 +56,7 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
     return { g: geometry, markers: eventMarkers(events, geometry) };
   }, [panel, days, width, events]);
   return (
-    <View testID={`chart-panel-${panel.key}`} style={{ gap: 2 }}>
+    <PrintHint hint="keep" testID={`chart-panel-${panel.key}`} style={{ gap: 2 }}>
       <AppText variant="caption" weight="bold">
         {`${panel.title} (${panel.unit})`}
       </AppText>
@@ -92,7 +93,7 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
           />
         ))}
       </Svg>
-    </View>
+    </PrintHint>
   );
 }
 

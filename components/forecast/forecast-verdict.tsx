@@ -49,8 +49,11 @@ export function ForecastVerdict({
           {verdict.sentence}
         </AppText>
       </View>
-      {compact ? null : forecastLimitRows(view, basis).map((r) => (
-        <View key={r.key} testID={`forecast-row-${r.key}`} style={{ borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.xs, gap: space.xxs }}>
+      {compact ? null : (
+        // Two columns where the card is wide enough, one on a phone.
+        <View style={{ flexDirection: 'row', flexWrap: 'wrap', columnGap: space.md, rowGap: space.sm }}>
+          {forecastLimitRows(view, basis).map((r) => (
+        <View key={r.key} testID={`forecast-row-${r.key}`} style={{ flexBasis: 210, flexGrow: 1, minWidth: 0, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.xs, gap: space.xxs }}>
           <AppText weight="bold">{r.name}</AppText>
           <AppText testID={`forecast-peak-${r.key}`}>{`Peak ${r.peak} on day ${Math.round(r.peakDay)}`}</AppText>
           {r.limit ? (
@@ -64,7 +67,9 @@ export function ForecastVerdict({
             <AppText variant="caption" tone="textMuted">No limit is set for nitrate here; regular water changes keep it down.</AppText>
           )}
         </View>
-      ))}
+          ))}
+        </View>
+      )}
       {acute && !compact ? (
         <AppText tone="dangerText" testID="forecast-over-tanAcute">
           {acute}

@@ -47,7 +47,7 @@ describe('a newcomer on a phone', () => {
       await page.getByTestId('event-timeline').getByText(/Add 6/).waitFor();
 
       // The forecast, in numbers as well as a chart, with the cautions.
-      await page.locator('[data-testid="chart-panel-ammonia-nitrite"] svg path').first().waitFor({ timeout: 30_000 });
+      await page.locator('[data-testid="chart-panel-ammonia"] svg path').first().waitFor({ timeout: 30_000 });
       expect(await page.getByTestId('forecast-peak-tan').innerText()).toMatch(/Peak/);
       expect(await page.getByTestId('plan-cautions').innerText()).toMatch(/water tests decide/);
 

@@ -13,9 +13,9 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Every path of the ammonia and nitrite panel: changes whenever that chart is redrawn differently. */
+/** Every path of the total ammonia panel: changes whenever that chart is redrawn differently. */
 async function chartSignature(page: Page): Promise<string> {
-  return page.locator('[data-testid="chart-panel-ammonia-nitrite"] svg path').evaluateAll((els) => els.map((e) => e.getAttribute('d')).join('|'));
+  return page.locator('[data-testid="chart-panel-ammonia"] svg path').evaluateAll((els) => els.map((e) => e.getAttribute('d')).join('|'));
 }
 
 /** Drags the slider's thumb from its place `steps` px to the right, in small moves like a finger. */
@@ -49,7 +49,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('plan and forecast at %s
     expect(await page.getByTestId('forecast-peak-no2').innerText()).toMatch(/Peak/);
     expect(await page.getByTestId('plan-cautions').innerText()).toMatch(/water tests decide/);
     if (size === 'wide') await page.getByTestId('plan-wide').waitFor();
-    await page.locator('[data-testid="chart-panel-ammonia-nitrite"] svg path').first().waitFor();
+    await page.locator('[data-testid="chart-panel-ammonia"] svg path').first().waitFor();
     await screenshot(page, `plan-${size}`);
 
     // Drag the fish-count slider: the live forecast (run in the browser) redraws the chart.
