@@ -34,7 +34,7 @@ export function printDays(plan: Pick<PlanDetail, 'startDate' | 'events' | 'check
     return byDay.get(d)!;
   };
   for (const e of plan.events) at(e.day).todo.push(describeEvent(e));
-  for (const c of plan.checkDays) at(c.day).tests.push(`Test ammonia and nitrite: ${c.reasons.join('; ')}`);
+  for (const c of plan.checkDays) at(c.day).tests.push(`Test total ammonia and nitrite: ${c.reasons.join('; ')}`);
   return [...byDay.values()].sort((a, b) => a.day - b.day);
 }
 

@@ -179,11 +179,11 @@ function PrintBody({ plan, tank, forecast, prefs }: { plan: PlanDetail; tank: Ta
 
 const READING_BOX = 76;
 
-function ReadingBox({ label }: { label: string }) {
+/** An empty box to write a reading in on paper; the column heading (or caption above) names it. */
+function ReadingBox() {
   const { colors, radii } = useTheme();
   return (
     <View
-      accessibilityLabel={`${label}: blank, to write in`}
       style={{ width: READING_BOX, height: 30, borderWidth: 1, borderColor: colors.fieldBorder, borderRadius: radii.sm, backgroundColor: colors.surface }}
     />
   );
@@ -242,7 +242,7 @@ function DayTable({ days, basis, wide }: { days: readonly PrintDay[]; basis: Pre
             {columns.map((c) => (
               <View key={c.key} style={{ gap: space.xxs }}>
                 {wide ? null : <AppText variant="caption">{c.title}</AppText>}
-                <ReadingBox label={`${c.title} on day ${d.day}, ${c.unit}`} />
+                <ReadingBox />
               </View>
             ))}
           </View>

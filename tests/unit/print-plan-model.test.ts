@@ -35,7 +35,7 @@ describe('printDays', () => {
     expect(rows.map((r) => r.day)).toEqual([...rows.map((r) => r.day)].sort((a, b) => a - b));
     expect(rows[rows.length - 1].day).toBe(lastCheck.day);
     expect(lastCheck.day).toBeGreaterThan(35); // the old printout was cut after day 35
-    expect(rows[rows.length - 1].tests[0]).toMatch(/^Test ammonia and nitrite: /);
+    expect(rows[rows.length - 1].tests[0]).toMatch(/^Test total ammonia and nitrite: /);
     expect(rows.find((r) => r.day === 21)!.todo).toEqual(['Add 6 Neon tetra']);
     expect(rows.find((r) => r.day === 21)!.date).toBe('2026-03-22');
   });
