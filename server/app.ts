@@ -86,7 +86,8 @@ export function createApp(
   api.use('/share-links', shareLinksRouter(deps));
   api.use('/share', sharedViewRouter(deps));
   api.use('/unsubscribe', unsubscribeRouter(deps));
-  if (config.env !== 'production' && config.mailFakeUrl) api.use('/dev', devRouter(deps));
+  // Only with DEV_OUTBOX=on (refused in production); see routes/dev.ts.
+  if (config.devOutbox) api.use('/dev', devRouter(deps));
   if (deps.extraApiRoutes) api.use(deps.extraApiRoutes);
   api.use((_req, _res, next) => next(notFound('No such API route.')));
   api.use(errorHandler(logger));
