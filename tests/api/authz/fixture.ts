@@ -11,6 +11,7 @@ import { ShareLink } from '../../../server/entities/share-link.js';
 import { UNSUBSCRIBE_PURPOSE } from '../../../server/jobs/reminders.js';
 import { newLinkToken, sha256Hex, signPayload } from '../../../server/services/secret-tokens.js';
 import { SESSION_COOKIE_NAME } from '../../../server/session.js';
+import type { Config } from '../../../server/config.js';
 import { addMember, createClub, createLivestock, createPlan, createReading, createTank, createUser } from '../helpers/factories.js';
 
 export const ACTORS = ['anonymous', 'keeper', 'member', 'mentor', 'organizerA', 'organizerB', 'admin'] as const;
@@ -83,7 +84,9 @@ async function forgeSession(ds: DataSource, secret: string, userId: string): Pro
   return signedCookie(sid, secret);
 }
 
-export async function buildFixture(ds: DataSource, secret: string): Promise<Fixture> {
+/** `config`: the app's, for its session secret (cookies) and unsubscribe key. */
+export async function buildFixture(ds: DataSource, config: Pick<Config, 'session' | 'unsubscribeSecret'>): Promise<Fixture> {
+  const secret = config.session.secret;
   const mk = (email: string, role: 'user' | 'admin' = 'user') => createUser(ds, { email, role });
   const [keeper, member, mentor, organizerA, organizerB, admin] = await Promise.all([
     mk('keeper@example.org'),
@@ -206,7 +209,7 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
       shareLinkToken,
       inviteToken,
       invite: invite.id,
-      unsubscribeToken: signPayload(secret, UNSUBSCRIBE_PURPOSE, member.id),
+      unsubscribeToken: signPayload(config.unsubscribeSecret, UNSUBSCRIBE_PURPOSE, member.id),
     },
     scenario: EXAMPLE_SCENARIO,
   };

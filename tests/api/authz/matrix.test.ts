@@ -79,7 +79,7 @@ async function freshFixture(): Promise<Fixture> {
   );
   await deps.dataSource.query(`TRUNCATE ${tables.map((t) => `"${t.table_name}"`).join(', ')} RESTART IDENTITY CASCADE`);
   mail.clear();
-  return buildFixture(deps.dataSource, deps.config.session.secret);
+  return buildFixture(deps.dataSource, deps.config);
 }
 
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
