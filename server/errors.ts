@@ -1,7 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import type { ApiError } from '../shared/api-error.js';
 import type { Logger } from './logger.js';
-import { matchedRoute, redactUrl } from './log-redaction.js';
+import { matchedRoute, redactUrl } from './request-log-labels.js';
 
 /**
  * The server's error vocabulary: each factory carries an HTTP status and a stable `code` the
@@ -108,7 +108,7 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
     // ASVS 16.3.2: denied access is logged (path with ids and tokens hidden): every 401 and
     // 403, and a route's own 404 (another keeper's object answers 404, so ownership refusals
     // are 404s). `matched` is the route pattern whose guard answered, null when no route did.
-    const matched = matchedRoute(req);
+    const matched = matchedRoute(req, res);
     if (appError.status === 401 || appError.status === 403 || (appError.status === 404 && matched)) {
       logger.log('warn', 'access.denied', {
         method: req.method,

@@ -1,4 +1,4 @@
-import type { Request } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 
 /** Path segments that are followed by a secret token (share, invite and unsubscribe links). */
 const TOKEN_PARENTS = new Set(['s', 'share', 'invite', 'invites', 'unsubscribe']);
@@ -18,14 +18,34 @@ export function redactUrl(url: string): string {
   return safePath + safeQuery;
 }
 
+/** res.locals marks: a mount's own guards ran (see `guardedMount`), or the API's catch-all answered. */
+const GUARDED = 'guardedMount';
+const NO_ROUTE = 'noRoute';
+
 /**
- * The route pattern that handled the request (`GET /api/tanks/:value/readings/:readingId`),
- * or null when no route did (a middleware or the API's catch-all answered). Express keeps
- * `req.route` relative to its router, so the mounted prefix comes from the URL, redacted.
+ * Put first in a `router.use(path, …guards, nestedRouter)` chain: the guards of that mount
+ * (sign-in, owns the tank) are the nested routes' own, so their refusals count as the route's.
  */
-export function matchedRoute(req: Request): string | null {
+export const guardedMount: RequestHandler = (_req, res, next) => {
+  res.locals[GUARDED] = true;
+  next();
+};
+
+/** The API's catch-all marks its 404 as answered by no route. */
+export function markNoRoute(res: Response): void {
+  res.locals[NO_ROUTE] = true;
+}
+
+/**
+ * The route that answered (`GET /api/tanks/:value/readings/:readingId`), or null when none
+ * did: a global layer (request guards, session, the API's catch-all) answered instead. Express
+ * keeps `req.route` relative to its router, so the mounted prefix comes from the URL,
+ * redacted; a guarded mount's refusal (before its routes are matched) is labelled by its URL.
+ */
+export function matchedRoute(req: Request, res: Response): string | null {
+  if (res.locals[NO_ROUTE]) return null;
   const pattern: unknown = req.route?.path;
-  if (typeof pattern !== 'string') return null;
+  if (typeof pattern !== 'string') return res.locals[GUARDED] ? `${req.method} ${redactUrl(req.originalUrl.split('?')[0] ?? '')}` : null;
   const actual = (req.originalUrl.split('?')[0] ?? '').replace(/(.)\/+$/, '$1').split('/');
   const own = pattern === '/' ? 0 : pattern.replace(/\/+$/, '').split('/').length - 1;
   const prefix = redactUrl(actual.slice(0, actual.length - own).join('/'));
