@@ -81,7 +81,6 @@ function isDatabaseUnavailable(err: unknown): boolean {
   );
 }
 
-
 /** The one error handler: known errors as they are, anything else as a generic 500. */
 export function errorHandler(logger: Logger): ErrorRequestHandler {
   return (err, req, res, next) => {
