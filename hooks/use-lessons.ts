@@ -74,6 +74,7 @@ export function useShareLinks(itemType: ShareableType, itemId: string) {
 export function useCreateShareLink(itemType: ShareableType, itemId: string) {
   const qc = useQueryClient();
   return useMutation({
+    /** Days the link works; left out, the server's default (SHARE_LINK_DEFAULT_DAYS). */
     mutationFn: (expiresInDays?: number) =>
       apiRequest('/api/share-links', { method: 'POST', body: { itemType, itemId, ...(expiresInDays ? { expiresInDays } : {}) }, schema: createdShareLinkSchema }),
     onSuccess: () => qc.invalidateQueries({ queryKey: shareLinkKey(itemType, itemId) }),

@@ -41,6 +41,8 @@ export PORT APP_URL="http://127.0.0.1:$PORT"
 export SESSION_SECRET="$(session_secret)"
 export SMTP_HOST=127.0.0.1 SMTP_PORT MAIL_FAKE_HTTP_PORT="$MAIL_HTTP_PORT"
 export MAIL_FAKE_URL="http://127.0.0.1:$MAIL_HTTP_PORT"
+# The outbox page (captured e-mails, reset links among them) is for this local run only.
+export DEV_OUTBOX=on
 export STATIC_DIR="$ROOT/dist"
 
 say "database migrations…"

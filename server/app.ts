@@ -21,6 +21,7 @@ import { adviceRouter } from './routes/advice.js';
 import { forecastsRouter } from './routes/forecasts.js';
 import { plansRouter } from './routes/plans.js';
 import { createSessionMiddleware } from './session.js';
+import { markNoRoute } from './request-log-labels.js';
 import { staticSite } from './static-site.js';
 
 /** JSON bodies are small here; anything larger is refused with 413. */
@@ -86,9 +87,13 @@ export function createApp(
   api.use('/share-links', shareLinksRouter(deps));
   api.use('/share', sharedViewRouter(deps));
   api.use('/unsubscribe', unsubscribeRouter(deps));
-  if (config.env !== 'production' && config.mailFakeUrl) api.use('/dev', devRouter(deps));
+  // Only with DEV_OUTBOX=on (refused in production); see routes/dev.ts.
+  if (config.devOutbox) api.use('/dev', devRouter(deps));
   if (deps.extraApiRoutes) api.use(deps.extraApiRoutes);
-  api.use((_req, _res, next) => next(notFound('No such API route.')));
+  api.use((_req, res, next) => {
+    markNoRoute(res);
+    next(notFound('No such API route.'));
+  });
   api.use(errorHandler(logger));
   // The unsubscribe confirmation is a plain HTML form post (see routes/unsubscribe.ts).
   app.use('/api/unsubscribe', noStore, unsubscribeConfirmRouter(deps));

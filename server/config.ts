@@ -1,6 +1,6 @@
 import path from 'node:path';
 import { z } from 'zod';
-import { randomBytes } from 'node:crypto';
+import { hkdfSync, randomBytes } from 'node:crypto';
 
 /**
  * Server configuration, read from the environment once at boot and validated here, so a bad
@@ -36,6 +36,12 @@ const envSchema = z
      * in production.
      */
     AUTH_ATTEMPT_LIMITS: z.enum(['on', 'off']).default('on'),
+    /** The HMAC key of unsubscribe links (its own key, so the session secret signs nothing in e-mails). */
+    UNSUBSCRIBE_SECRET: z.string().min(32, 'must be at least 32 characters (use a long random string)').optional(),
+    /** PostgreSQL `statement_timeout` of the app's connections (ms; 0 = none). Migrations run without it. */
+    DB_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(0).max(600_000).default(15_000),
+    /** The development outbox page (/api/dev/outbox): on only for local development; never in production. */
+    DEV_OUTBOX: z.enum(['on', 'off']).default('off'),
   })
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
@@ -45,6 +51,10 @@ const envSchema = z
     if (!env.APP_URL) ctx.addIssue({ code: 'custom', path: ['APP_URL'], message: 'is required in production' });
     if (env.MAIL_FAKE_URL) ctx.addIssue({ code: 'custom', path: ['MAIL_FAKE_URL'], message: 'must not be set in production' });
     if (env.AUTH_ATTEMPT_LIMITS === 'off') ctx.addIssue({ code: 'custom', path: ['AUTH_ATTEMPT_LIMITS'], message: 'must be on in production' });
+    if (!env.UNSUBSCRIBE_SECRET) ctx.addIssue({ code: 'custom', path: ['UNSUBSCRIBE_SECRET'], message: 'is required in production' });
+    else if (env.UNSUBSCRIBE_SECRET === env.SESSION_SECRET)
+      ctx.addIssue({ code: 'custom', path: ['UNSUBSCRIBE_SECRET'], message: 'must differ from SESSION_SECRET' });
+    if (env.DEV_OUTBOX === 'on') ctx.addIssue({ code: 'custom', path: ['DEV_OUTBOX'], message: 'must be off in production' });
   });
 
 export interface Config {
@@ -61,6 +71,12 @@ export interface Config {
   jobsEnabled: boolean;
   /** Attempt limits on sign-up, password reset, forgot-password and invite accept. */
   attemptLimitsEnabled: boolean;
+  /** HMAC key of unsubscribe links. */
+  unsubscribeSecret: string;
+  /** `statement_timeout` of the app's database connections, in ms (0 = none). */
+  dbStatementTimeoutMs: number;
+  /** The development outbox is mounted (DEV_OUTBOX=on, never in production). */
+  devOutbox: boolean;
 }
 
 export class ConfigError extends Error {
@@ -111,5 +127,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: parseTrustProxy(e.TRUST_PROXY),
     jobsEnabled: e.JOBS === 'on',
     attemptLimitsEnabled: e.AUTH_ATTEMPT_LIMITS === 'on',
+    // Outside production a missing key is derived from the session secret (HKDF with its own
+    // label, so neither key reveals the other); production requires its own.
+    unsubscribeSecret:
+      e.UNSUBSCRIBE_SECRET ?? Buffer.from(hkdfSync('sha256', secret, 'shoalshift', 'unsubscribe-links', 32)).toString('base64url'),
+    dbStatementTimeoutMs: e.DB_STATEMENT_TIMEOUT_MS,
+    devOutbox: e.NODE_ENV !== 'production' && e.DEV_OUTBOX === 'on' && Boolean(e.MAIL_FAKE_URL),
   };
 }

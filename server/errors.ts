@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler } from 'express';
 import type { ApiError } from '../shared/api-error.js';
 import type { Logger } from './logger.js';
+import { matchedRoute, redactUrl } from './request-log-labels.js';
 
 /**
  * The server's error vocabulary: each factory carries an HTTP status and a stable `code` the
@@ -39,8 +40,10 @@ export const unsupportedMediaType = () =>
   new AppError(415, 'unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
 export const tooManyRequests = (retryAfterSeconds: number, message = 'Too many attempts. Try again later.') =>
   new AppError(429, 'too_many_requests', message, undefined, { 'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))) });
-export const serviceUnavailable = () =>
-  new AppError(503, 'unavailable', 'The service is briefly unavailable. Try again in a moment.');
+export const serviceUnavailable = (retryAfterSeconds = 5) =>
+  new AppError(503, 'unavailable', 'The service is briefly unavailable. Try again in a moment.', undefined, {
+    'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))),
+  });
 export const internalError = () => new AppError(500, 'internal', 'Something went wrong on our side. Try again later.');
 
 /** Errors raised by body-parser carry a `type`; map the ones a client can cause. */
@@ -59,7 +62,11 @@ function fromBodyParser(err: unknown): AppError | undefined {
   }
 }
 
-/** PostgreSQL unreachable or shutting down: the client may retry. */
+/**
+ * PostgreSQL unreachable, shutting down, every pooled connection busy (node-postgres: "timeout
+ * exceeded when trying to connect"), or a statement past `statement_timeout` (57014): the
+ * client may retry shortly.
+ */
 function isDatabaseUnavailable(err: unknown): boolean {
   if (typeof err !== 'object' || err === null) return false;
   const code = (err as { code?: unknown }).code;
@@ -69,13 +76,9 @@ function isDatabaseUnavailable(err: unknown): boolean {
     code === 'ECONNRESET' ||
     code === '57P01' || // admin_shutdown
     code === '57P03' || // cannot_connect_now
-    /Connection terminated|connection timeout|Driver not Connected/i.test(message)
+    code === '57014' || // query_canceled (statement_timeout)
+    /Connection terminated|connection timeout|timeout exceeded when trying to connect|Driver not Connected/i.test(message)
   );
-}
-
-/** The request path with long (id- or token-like) segments hidden: a path may carry a token. */
-function routeLabel(req: Parameters<ErrorRequestHandler>[1]): string {
-  return (req.originalUrl.split('?')[0] ?? '').replace(/[^/]{20,}/g, ':value');
 }
 
 /** The one error handler: known errors as they are, anything else as a generic 500. */
@@ -96,16 +99,20 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       appError = isDatabaseUnavailable(err) ? serviceUnavailable() : internalError();
       logger.log('error', 'request.failed', {
         method: req.method,
-        path: req.path,
+        path: redactUrl(req.originalUrl),
         error: err instanceof Error ? `${err.name}: ${err.message}` : String(err),
         stack: err instanceof Error ? err.stack : undefined,
       });
     }
-    if (appError.status === 401 || appError.status === 403) {
-      // ASVS 16.3.2: denied access is logged (path with ids and tokens hidden).
+    // ASVS 16.3.2: denied access is logged (path with ids and tokens hidden): every 401 and
+    // 403, and a route's own 404 (another keeper's object answers 404, so ownership refusals
+    // are 404s). `matched` is the route pattern whose guard answered, null when no route did.
+    const matched = matchedRoute(req, res);
+    if (appError.status === 401 || appError.status === 403 || (appError.status === 404 && matched)) {
       logger.log('warn', 'access.denied', {
         method: req.method,
-        route: routeLabel(req),
+        route: redactUrl(req.originalUrl.split('?')[0] ?? ''),
+        matched,
         status: appError.status,
         code: appError.code,
         userId: (req as { session?: { userId?: string } }).session?.userId,

@@ -13,13 +13,14 @@ export function buildDeps(config: Config, logger: Logger): AppDeps {
     max: 5,
     connectionTimeoutMillis: 5_000,
     application_name: 'shoalshift-sessions',
+    ...(config.dbStatementTimeoutMs ? { statement_timeout: config.dbStatementTimeoutMs } : {}),
   });
   // node-postgres throws from an idle client's error (database restart, dropped connection)
   // unless the pool has a listener; log it and let the pool replace the client.
   sessionPool.on('error', (err) => logger.log('warn', 'db.session_pool_error', { error: String(err) }));
   return {
     config,
-    dataSource: createDataSource(config.databaseUrl, logger),
+    dataSource: createDataSource(config.databaseUrl, logger, { statementTimeoutMs: config.dbStatementTimeoutMs }),
     sessionPool,
     mailer: createMailer(config.smtp),
     logger,

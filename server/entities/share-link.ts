@@ -19,8 +19,9 @@ export class ShareLink {
   @Column({ type: 'uuid', name: 'created_by' })
   createdBy: string;
 
-  @Column({ type: 'timestamptz', name: 'expires_at', nullable: true })
-  expiresAt: Date | null;
+  /** Every link expires (30 days unless its maker chose otherwise, at most a year). */
+  @Column({ type: 'timestamptz', name: 'expires_at' })
+  expiresAt: Date;
 
   @Column({ type: 'timestamptz', name: 'revoked_at', nullable: true })
   revokedAt: Date | null;

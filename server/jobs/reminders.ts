@@ -56,7 +56,7 @@ export async function dueReminders(ds: DataSource, date: string): Promise<Remind
 }
 
 export function unsubscribeLink(config: Config, userId: string): string {
-  return `${config.appUrl}/api/unsubscribe/${encodeURIComponent(signPayload(config.session.secret, UNSUBSCRIBE_PURPOSE, userId))}`;
+  return `${config.appUrl}/api/unsubscribe/${encodeURIComponent(signPayload(config.unsubscribeSecret, UNSUBSCRIBE_PURPOSE, userId))}`;
 }
 
 /** Sends one reminder unless it was sent already, the plan is no longer active, or the keeper opted out. */

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { createClubSchema, createInviteSchema, createShareSchema, memberRoleSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
-import { conflict, notFound } from '../errors.js';
+import { AppError, conflict, notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
@@ -46,6 +46,9 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
       clubName: membership.club?.name ?? '',
       inviter: currentUser(req),
       email: validBody(req, createInviteSchema).email,
+    }).catch((err: unknown) => {
+      if (err instanceof AppError && err.status === 429) logger.log('warn', 'clubs.invite_limited', { clubId: membership.clubId, userId: membership.userId });
+      throw err;
     });
     background.run('club-invite-mail', send);
     res.status(201).json({ id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() });

@@ -1,4 +1,4 @@
-import { Router, type ErrorRequestHandler, type RequestHandler } from 'express';
+import { Router, type RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import {
@@ -11,7 +11,7 @@ import {
 } from '../../shared/schemas/reading.js';
 import type { AppDeps } from '../deps.js';
 import { onReadingLogged, onReadingsImported } from '../jobs/alerts.js';
-import { AppError, notFound, payloadTooLarge, validationFailed } from '../errors.js';
+import { AppError, badRequest, notFound, payloadTooLarge, validationFailed } from '../errors.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
 import { presentReading } from '../presenters/tank.js';
 import { parseReadingsCsv, readingsToCsv } from '../services/readings-csv.js';
@@ -37,13 +37,21 @@ const upload = multer({
   limits: { fileSize: CSV_IMPORT_MAX_BYTES, files: 1, fields: 4, parts: 5, fieldSize: 1024 },
 }).single('file');
 
-/** Multer's refusals in the API's error vocabulary. */
-const uploadErrors: ErrorRequestHandler = (err, _req, _res, next) => {
-  if (err instanceof multer.MulterError) {
-    if (err.code === 'LIMIT_FILE_SIZE') return next(payloadTooLarge());
-    return next(validationFailed({ file: 'Send one CSV file in the "file" field.' }));
-  }
-  next(err);
+/**
+ * Parses the upload, with multer's refusals in the API's error vocabulary. Anything else the
+ * parser throws (busboy: no boundary, a cut-off body, a malformed part header) is the client's
+ * malformed multipart body, so a 400 naming it, never a 500.
+ */
+const parseUpload: RequestHandler = (req, res, next) => {
+  upload(req, res, (err: unknown) => {
+    if (!err) return next();
+    if (err instanceof multer.MulterError) {
+      if (err.code === 'LIMIT_FILE_SIZE') return next(payloadTooLarge());
+      return next(validationFailed({ file: 'Send one CSV file in the "file" field.' }));
+    }
+    const detail = err instanceof Error ? err.message.replace(/^Multipart:\s*/i, '') : 'unreadable';
+    next(badRequest(`The upload is not a well-formed multipart/form-data body (${detail}).`, { file: 'Upload the file again: the request body was cut off or malformed.' }));
+  });
 };
 
 /** The uploaded CSV as text; 400 without a file, 415 when it is not a text CSV. */
@@ -118,7 +126,7 @@ export function readingsRouter(deps: AppDeps): Router {
       .send(csv);
   });
 
-  const withUpload: RequestHandler[] = [upload as RequestHandler];
+  const withUpload: RequestHandler[] = [parseUpload];
 
   router.post('/import/preview', ...withUpload, async (req, res) => {
     res.json(await preview(ds, tankId(req), csvText(req)));
@@ -144,6 +152,5 @@ export function readingsRouter(deps: AppDeps): Router {
     res.status(204).end();
   });
 
-  router.use(uploadErrors);
   return router;
 }

@@ -12,27 +12,34 @@ import { idParam } from './club-params.js';
 const listQuery = z.object({ itemType: shareableTypeSchema, itemId: z.string().uuid() });
 const TOKEN = /^[A-Za-z0-9_-]{43}$/;
 
-const present = (l: ShareLink): ShareLinkItem => ({
+const present = (l: ShareLink, madeBy: string, userId: string): ShareLinkItem => ({
   id: l.id,
   itemType: l.itemType,
   createdAt: l.createdAt.toISOString(),
-  expiresAt: l.expiresAt?.toISOString() ?? null,
+  expiresAt: l.expiresAt.toISOString(),
   revokedAt: l.revokedAt ? new Date(l.revokedAt).toISOString() : null,
+  madeBy,
+  mine: l.createdBy === userId,
 });
 
-/** /api/share-links — create, list and revoke read-only links (signed in). */
+/**
+ * /api/share-links — create, list and revoke read-only links (signed in). A lesson's links
+ * are listed to, and revocable by, its club's organizers as well as their maker.
+ */
 export function shareLinksRouter({ dataSource: ds, config }: AppDeps): Router {
   const router = Router();
   const auth = requireAuth(ds, config);
 
   router.post('/', auth, validateBody(createShareLinkSchema), async (req, res) => {
-    const { link, token } = await createShareLink(ds, currentUser(req).id, validBody(req, createShareLinkSchema));
-    res.status(201).json({ ...present(link), url: `${config.appUrl}/s/${token}` });
+    const user = currentUser(req);
+    const { link, token } = await createShareLink(ds, user.id, validBody(req, createShareLinkSchema));
+    res.status(201).json({ ...present(link, user.displayName, user.id), url: `${config.appUrl}/s/${token}` });
   });
 
   router.get('/', auth, validateQuery(listQuery), async (req, res) => {
     const { itemType, itemId } = validQuery(req, listQuery);
-    res.json({ links: (await listShareLinks(ds, currentUser(req).id, itemType, itemId)).map(present) });
+    const userId = currentUser(req).id;
+    res.json({ links: (await listShareLinks(ds, userId, itemType, itemId)).map(({ link, madeBy }) => present(link, madeBy, userId)) });
   });
 
   router.delete('/:linkId', auth, async (req, res) => {

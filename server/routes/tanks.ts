@@ -5,6 +5,7 @@ import type { AppDeps } from '../deps.js';
 import { notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { guardedMount } from '../request-log-labels.js';
 import { presentTankDetail, presentTankSummaryWithStatus } from '../presenters/tank.js';
 import { createOwnTank, deleteOwnTank, findOwnTank, getOwnTank, listOwnTanks, updateOwnTank } from '../services/tanks.js';
 import { livestockRouter } from './livestock.js';
@@ -72,8 +73,9 @@ export function tanksRouter(deps: AppDeps): Router {
     res.status(204).end();
   });
 
-  router.use('/:id/livestock', auth, ownTank(deps), livestockRouter(deps));
-  router.use('/:id/readings', auth, ownTank(deps), readingsRouter(deps));
+  // guardedMount: these guards are the nested routes' own (their refusals are logged as such).
+  router.use('/:id/livestock', guardedMount, auth, ownTank(deps), livestockRouter(deps));
+  router.use('/:id/readings', guardedMount, auth, ownTank(deps), readingsRouter(deps));
 
   return router;
 }

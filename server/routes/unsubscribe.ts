@@ -12,13 +12,13 @@ const page = (title: string, body: string) => `<!doctype html>
 
 /**
  * /api/unsubscribe/:token — the link in every reminder. It works without signing in (the token
- * is an HMAC of the user id with the server secret). A GET only shows a confirm button, so
+ * is an HMAC of the user id with UNSUBSCRIBE_SECRET). A GET only shows a confirm button, so
  * mail scanners that prefetch links do not unsubscribe anyone; the button POSTs (RFC 8058
  * one-click style). Pages are plain HTML with no script, within the API's CSP.
  */
 export function unsubscribeRouter({ config }: AppDeps): Router {
   const router = Router();
-  const userOf = (token: unknown) => (typeof token === 'string' ? verifySignedPayload(config.session.secret, UNSUBSCRIBE_PURPOSE, token) : null);
+  const userOf = (token: unknown) => (typeof token === 'string' ? verifySignedPayload(config.unsubscribeSecret, UNSUBSCRIBE_PURPOSE, token) : null);
 
   router.get('/:token', (req, res) => {
     if (!userOf(req.params.token)) {
@@ -44,7 +44,7 @@ export function unsubscribeConfirmRouter({ dataSource: ds, config, logger }: App
   const router = Router();
   router.post('/:token', async (req, res) => {
     const token = req.params.token;
-    const userId = typeof token === 'string' ? verifySignedPayload(config.session.secret, UNSUBSCRIBE_PURPOSE, token) : null;
+    const userId = typeof token === 'string' ? verifySignedPayload(config.unsubscribeSecret, UNSUBSCRIBE_PURPOSE, token) : null;
     if (!userId) {
       res.status(404).type('html').send(page('Link not valid', 'This unsubscribe link is not valid.'));
       return;

@@ -10,6 +10,7 @@ import { clubInviteMail } from '../mail/templates/club-invite.js';
 import { signUp } from './accounts.js';
 import { newLinkToken, sha256Hex } from './secret-tokens.js';
 import { returnedRows } from '../data-source.js';
+import { enforceInviteQuota } from './invite-quota.js';
 
 export const INVITE_VALID_DAYS = 7;
 export const INVALID_INVITE_MESSAGE = 'This invite link is not valid, was used already, or has expired. Ask the organizer for a new one.';
@@ -27,17 +28,23 @@ export async function createInvite(
   );
   if (already.length > 0) throw conflict('That person is already a member.', { email: 'That person is already a member.' });
   const token = newLinkToken();
-  const invite = await ds.getRepository(ClubInvite).save(
-    ds.getRepository(ClubInvite).create({
-      clubId: input.clubId,
-      email: input.email,
-      tokenHash: sha256Hex(token),
-      invitedBy: input.inviter.id,
-      expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
-      usedAt: null,
-      revokedAt: null,
-    }),
-  );
+  // The caps are counted and the invite written in one transaction, so parallel sends
+  // (from any process) cannot all pass the count.
+  const invite = await ds.transaction(async (tx) => {
+    await enforceInviteQuota(tx, input.inviter.id, input.clubId);
+    const repo = tx.getRepository(ClubInvite);
+    return repo.save(
+      repo.create({
+        clubId: input.clubId,
+        email: input.email,
+        tokenHash: sha256Hex(token),
+        invitedBy: input.inviter.id,
+        expiresAt: new Date(Date.now() + INVITE_VALID_DAYS * 86_400_000),
+        usedAt: null,
+        revokedAt: null,
+      }),
+    );
+  });
   const link = `${appUrl}/invite/${encodeURIComponent(token)}`;
   const content = clubInviteMail({ clubName: input.clubName, invitedBy: input.inviter.displayName, link, validDays: INVITE_VALID_DAYS });
   return { invite, send: () => mailer.send(input.email, content) };

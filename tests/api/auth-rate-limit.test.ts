@@ -205,7 +205,7 @@ describe('attempt limits on the expensive anonymous auth routes (common practice
       await from('203.0.113.15', off).post('/api/auth/forgot-password', { email: 'koi@example.org' }).expect(202);
     }
     expect(await ctx.deps.dataSource.query(`SELECT 1 FROM auth_attempts`)).toHaveLength(0);
-    const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40) };
+    const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40), UNSUBSCRIBE_SECRET: 'u'.repeat(40) };
     expect(() => loadConfig({ ...production, AUTH_ATTEMPT_LIMITS: 'off' })).toThrow(/AUTH_ATTEMPT_LIMITS must be on in production/);
     expect(loadConfig(production).attemptLimitsEnabled).toBe(true);
   });

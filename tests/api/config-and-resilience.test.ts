@@ -30,6 +30,7 @@ describe('configuration', () => {
       'SESSION_SECRET is required in production',
       'APP_URL is required in production',
       'MAIL_FAKE_URL must not be set in production',
+      'UNSUBSCRIBE_SECRET is required in production',
     ]);
   });
 

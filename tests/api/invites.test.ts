@@ -37,7 +37,9 @@ describe('club invites by e-mail', () => {
     const { club, org } = await organizerWithClub();
     const token = await inviteByMail(org, club.id, 'New.Keeper@Example.org');
     const mail = ctx.mail.messages()[0];
-    expect(mail.subject).toBe('Olive invites you to Heron Pond Aquarists on Shoalshift');
+    // Fixed wording: the names typed into the app stay out of the subject line (invite-quota.ts).
+    expect(mail.subject).toBe('An invitation to a club on Shoalshift');
+    expect(mail.text).toContain('"Olive" invites you to join the club "Heron Pond Aquarists"');
     expect(mail.to).toEqual(['new.keeper@example.org']);
 
     // Only the token's hash is stored.

@@ -47,7 +47,7 @@ describe('read-only share links', () => {
     for (const secret of [owner.email, owner.id, tank.id, plan.id, otherPlan.id, created.id, 'Another plan']) expect(res.text).not.toContain(secret);
   });
 
-  it('stops working when revoked or expired; only its creator can revoke', async () => {
+  it('stops working when revoked or expired; only its creator can revoke a plan link', async () => {
     const { plan } = await setup();
     const c = await signedIn('owner@example.org');
     const created = (await c.post('/api/share-links', { itemType: 'plan', itemId: plan.id }).expect(201)).body;

@@ -11,6 +11,7 @@ import { ShareLink } from '../../../server/entities/share-link.js';
 import { UNSUBSCRIBE_PURPOSE } from '../../../server/jobs/reminders.js';
 import { newLinkToken, sha256Hex, signPayload } from '../../../server/services/secret-tokens.js';
 import { SESSION_COOKIE_NAME } from '../../../server/session.js';
+import type { Config } from '../../../server/config.js';
 import { addMember, createClub, createLivestock, createPlan, createReading, createTank, createUser } from '../helpers/factories.js';
 
 export const ACTORS = ['anonymous', 'keeper', 'member', 'mentor', 'organizerA', 'organizerB', 'admin'] as const;
@@ -46,6 +47,8 @@ export interface Fixture {
     lesson: string;
     /** The member's read-only link to their plan, and its token. */
     shareLink: string;
+    /** The mentor's read-only link to club A's lesson. */
+    lessonLink: string;
     shareLinkToken: string;
     /** A live invite to club A for an address with no account. */
     inviteToken: string;
@@ -83,7 +86,9 @@ async function forgeSession(ds: DataSource, secret: string, userId: string): Pro
   return signedCookie(sid, secret);
 }
 
-export async function buildFixture(ds: DataSource, secret: string): Promise<Fixture> {
+/** `config`: the app's, for its session secret (cookies) and unsubscribe key. */
+export async function buildFixture(ds: DataSource, config: Pick<Config, 'session' | 'unsubscribeSecret'>): Promise<Fixture> {
+  const secret = config.session.secret;
   const mk = (email: string, role: 'user' | 'admin' = 'user') => createUser(ds, { email, role });
   const [keeper, member, mentor, organizerA, organizerB, admin] = await Promise.all([
     mk('keeper@example.org'),
@@ -142,8 +147,13 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
     }),
   );
   const shareLinkToken = newLinkToken();
+  const inAMonth = new Date(Date.now() + 30 * 86_400_000);
   const shareLink = await ds.getRepository(ShareLink).save(
-    ds.getRepository(ShareLink).create({ tokenHash: sha256Hex(shareLinkToken), itemType: 'plan', itemId: m.plan, createdBy: member.id, expiresAt: null, revokedAt: null }),
+    ds.getRepository(ShareLink).create({ tokenHash: sha256Hex(shareLinkToken), itemType: 'plan', itemId: m.plan, createdBy: member.id, expiresAt: inAMonth, revokedAt: null }),
+  );
+  // The mentor's link to the lesson: club A's organizer may revoke it too.
+  const lessonLink = await ds.getRepository(ShareLink).save(
+    ds.getRepository(ShareLink).create({ tokenHash: sha256Hex(newLinkToken()), itemType: 'lesson', itemId: lesson.id, createdBy: mentor.id, expiresAt: inAMonth, revokedAt: null }),
   );
   const inviteToken = newLinkToken();
   const invite = await ds.getRepository(ClubInvite).save(
@@ -182,8 +192,10 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
   // Club A's objects are seen by club A's people only; the lesson and share by its members.
   for (const a of ['member', 'mentor', 'organizerA'] as Actor[]) owned[a].push(lesson.id, planShare.id, comment.id);
   owned.member.push(shareLink.id);
+  owned.mentor.push(lessonLink.id);
+  owned.organizerA.push(lessonLink.id);
   owned.organizerA.push(invite.id);
-  const allObjects = [...Object.values(m), ...Object.values(k), ...Object.values(b), lesson.id, planShare.id, comment.id, shareLink.id, invite.id];
+  const allObjects = [...Object.values(m), ...Object.values(k), ...Object.values(b), lesson.id, planShare.id, comment.id, shareLink.id, lessonLink.id, invite.id];
   return {
     users: Object.fromEntries(Object.entries(users).map(([k2, u]) => [k2, { id: u.id, email: u.email }])) as Fixture['users'],
     clubA: clubA.id,
@@ -203,10 +215,11 @@ export async function buildFixture(ds: DataSource, secret: string): Promise<Fixt
       comment: comment.id,
       lesson: lesson.id,
       shareLink: shareLink.id,
+      lessonLink: lessonLink.id,
       shareLinkToken,
       inviteToken,
       invite: invite.id,
-      unsubscribeToken: signPayload(secret, UNSUBSCRIBE_PURPOSE, member.id),
+      unsubscribeToken: signPayload(config.unsubscribeSecret, UNSUBSCRIBE_PURPOSE, member.id),
     },
     scenario: EXAMPLE_SCENARIO,
   };

@@ -12,7 +12,7 @@ import { memoryLogger } from '../../../server/logger.js';
 import { startMailFake, type MailFake } from '../../../server/mail/fake-smtp.js';
 import { buildDeps } from '../../../server/runtime.js';
 import { ACTORS, buildFixture, type Actor, type Fixture } from './fixture.js';
-import { MATRIX } from './matrix.js';
+import { CROSS_TENANT, MATRIX, type MatrixRow } from './matrix.js';
 import { listRoutes } from './routes.js';
 
 /**
@@ -25,6 +25,7 @@ let app: ReturnType<typeof createApp>;
 let mail: MailFake;
 let staticDir: string;
 let digestSql: string;
+const logs = memoryLogger();
 
 beforeAll(async () => {
   const url = process.env.DATABASE_URL;
@@ -40,9 +41,10 @@ beforeAll(async () => {
     SMTP_HOST: '127.0.0.1',
     SMTP_PORT: String(mail.smtpPort),
     MAIL_FAKE_URL: mail.url,
+    DEV_OUTBOX: 'on',
     STATIC_DIR: staticDir,
   });
-  deps = buildDeps(config, memoryLogger());
+  deps = buildDeps(config, logs);
   await deps.dataSource.initialize();
   await deps.dataSource.runMigrations({ transaction: 'each' });
   app = createApp(deps);
@@ -79,7 +81,7 @@ async function freshFixture(): Promise<Fixture> {
   );
   await deps.dataSource.query(`TRUNCATE ${tables.map((t) => `"${t.table_name}"`).join(', ')} RESTART IDENTITY CASCADE`);
   mail.clear();
-  return buildFixture(deps.dataSource, deps.config.session.secret);
+  return buildFixture(deps.dataSource, deps.config);
 }
 
 const UNSAFE = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -104,6 +106,24 @@ function expectHeaders(res: request.Response, pattern: string) {
 
 const DENIED = new Set<unknown>([401, 403, 404]);
 
+/** `GET /api/tanks/:id` and `GET /api/tanks/:value` alike: parameter names do not matter. */
+const shape = (route: string) => route.replace(/:[A-Za-z_]\w*/g, ':');
+
+/**
+ * Why a denial was not the route's own (null when it was): the app logs every denial as
+ * `access.denied` with `matched`, the route whose guard refused (server/errors.ts), or null
+ * when a global layer answered — the request guards, the session, or the API's catch-all 404
+ * that a mistyped path or a missing route falls through to.
+ */
+function notTheRoutesDenial(entries: typeof logs.entries, method: string, pattern: string): string | null {
+  const denied = entries.filter((e) => e.event === 'access.denied');
+  if (denied.length !== 1) return `expected one access.denied log entry, got ${denied.length}: ${JSON.stringify(denied.map((e) => e.fields))}`;
+  const matched = denied[0]!.fields.matched;
+  if (typeof matched !== 'string') return `answered by a layer that is not a route (${JSON.stringify(denied[0]!.fields)})`;
+  if (shape(matched) !== shape(`${method} ${pattern}`)) return `answered by ${matched}, not by ${method} ${pattern}`;
+  return null;
+}
+
 describe('authorization matrix (ASVS 8.2.1–8.2.3, 8.4.1)', () => {
   it('has exactly one row for every route the app answers', () => {
     const live = listRoutes(app).map((r) => `${r.method} ${r.path}`);
@@ -113,8 +133,13 @@ describe('authorization matrix (ASVS 8.2.1–8.2.3, 8.4.1)', () => {
     expect(stale, `rows for routes that no longer exist:\n${stale.join('\n')}`).toEqual([]);
   });
 
-  for (const [key, row] of Object.entries(MATRIX)) {
-    const [method, pattern] = key.split(' ') as [string, string];
+  it('every cross-tenant row is for a route with a row of its own', () => {
+    for (const key of Object.keys(CROSS_TENANT)) expect(Object.keys(MATRIX), key).toContain(key.split(' — ')[0]);
+  });
+
+  const rows: [string, MatrixRow][] = [...Object.entries(MATRIX), ...Object.entries(CROSS_TENANT)];
+  for (const [key, row] of rows) {
+    const [method, pattern] = key.split(' — ')[0]!.split(' ') as [string, string];
     describe(key, () => {
       let fx: Fixture | undefined;
       // Denied actors first: they share one fixture.
@@ -126,6 +151,7 @@ describe('authorization matrix (ASVS 8.2.1–8.2.3, 8.4.1)', () => {
           const { path: url, body, csv } = row.request(world, actor);
           const denied = DENIED.has(outcome);
           const before = denied ? await digest() : '';
+          logs.entries.length = 0;
           const res = await send(method, url, world, actor, body, csv);
           // Anything but a proven denial may have written: the next actor gets a new world.
           if (!denied || res.status !== outcome) fx = undefined;
@@ -140,7 +166,11 @@ describe('authorization matrix (ASVS 8.2.1–8.2.3, 8.4.1)', () => {
             expect(leaked, `foreign ids in the answer to ${actor}`).toEqual([]);
           } else {
             expect(res.status, res.text.slice(0, 300)).toBe(outcome);
-            if (denied) expect(await digest(), 'a denied request wrote').toBe(before);
+            if (denied) {
+              expect(await digest(), 'a denied request wrote').toBe(before);
+              // The refusal must come from this route's own guard, not from a layer in front.
+              expect(notTheRoutesDenial(logs.entries, method, pattern)).toBeNull();
+            }
           }
         });
       }
@@ -148,3 +178,26 @@ describe('authorization matrix (ASVS 8.2.1–8.2.3, 8.4.1)', () => {
   }
 });
 
+describe('the matrix tells a route’s own denial from another layer’s', () => {
+  it('flags a denial by the request guards and by the API’s catch-all, and passes the route’s own', async () => {
+    const fx = await freshFixture();
+    logs.entries.length = 0;
+    // No CSRF header: the global request guards answer 403 before any route runs.
+    await request(app).delete(`/api/tanks/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(403);
+    expect(notTheRoutesDenial(logs.entries, 'DELETE', '/api/tanks/:id')).toMatch(/not a route/);
+
+    logs.entries.length = 0;
+    // A path no route answers (a typo in a row): the catch-all's 404 is no ownership refusal.
+    await request(app).get(`/api/tank/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(404);
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toMatch(/expected one access.denied/);
+
+    logs.entries.length = 0;
+    // Another route's refusal is not this one's.
+    await request(app).get(`/api/plans/${fx.plans.member}`).set('Cookie', fx.cookies.keeper).expect(404);
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toMatch(/answered by GET \/api\/plans\/:id/);
+
+    logs.entries.length = 0;
+    await request(app).get(`/api/tanks/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(404);
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toBeNull();
+  });
+});

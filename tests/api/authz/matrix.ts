@@ -64,7 +64,7 @@ export const MATRIX: Record<string, MatrixRow> = {
     expect: all('ok'),
   },
   'GET /api/health': { request: () => ({ path: '/api/health' }), expect: all('ok') },
-  // Development outbox: answers only a client on this machine (supertest is one).
+  // Development outbox (DEV_OUTBOX=on): answers only a direct client on this machine (supertest is one).
   'GET /api/dev/outbox': { request: () => ({ path: '/api/dev/outbox' }), expect: all('ok') },
   'GET /{*splat}': { request: () => ({ path: '/tanks/anything' }), expect: all('ok') },
 
@@ -257,4 +257,70 @@ export const MATRIX: Record<string, MatrixRow> = {
   'DELETE /api/share-links/:linkId': { request: (fx) => ({ path: `/api/share-links/${fx.extra.shareLink}` }), expect: ownerOnly() },
 };
 
-export const shorthands = { all, signedIn, ownerOnly, clubA };
+/** Nobody gets it: 404 to every signed-in actor (ids cannot be probed), 401 signed out. */
+const nobody = () => ({ ...all(404), anonymous: 401 as Outcome });
+
+/**
+ * More rows for routes already in MATRIX: a parent the actor may reach with a child that is
+ * another tenant's (own tank + someone else's reading; club B's path + club A's share), and a
+ * club's lesson link. Keys are `METHOD path — situation`; the part before ` — ` must be a
+ * MATRIX key. The actor named in the situation owns the parent, and still gets 404.
+ */
+export const CROSS_TENANT: Record<string, MatrixRow> = {
+  'DELETE /api/tanks/:id/readings/:readingId — the keeper’s tank, the member’s reading': {
+    request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/readings/${fx.readings.member}` }),
+    expect: nobody(),
+  },
+  'PATCH /api/tanks/:id/livestock/:livestockId — the keeper’s tank, the member’s fish': {
+    request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/livestock/${fx.livestock.member}`, body: { count: 3 } }),
+    expect: nobody(),
+  },
+  'DELETE /api/tanks/:id/livestock/:livestockId — the keeper’s tank, the member’s fish': {
+    request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/livestock/${fx.livestock.member}` }),
+    expect: nobody(),
+  },
+  'GET /api/clubs/:clubId/shares/:shareId — club B, club A’s share': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/shares/${fx.extra.planShare}` }),
+    expect: nobody(),
+  },
+  'DELETE /api/clubs/:clubId/shares/:shareId — club B, club A’s share': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/shares/${fx.extra.planShare}` }),
+    expect: nobody(),
+  },
+  'GET /api/clubs/:clubId/shares/:shareId/comments — club B, club A’s share': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/shares/${fx.extra.planShare}/comments` }),
+    expect: nobody(),
+  },
+  'POST /api/clubs/:clubId/shares/:shareId/comments — club B, club A’s share': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/shares/${fx.extra.planShare}/comments`, body: { body: 'From the other club.' } }),
+    expect: nobody(),
+  },
+  'POST /api/clubs/:clubId/lessons — club B, from club A’s share': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/lessons`, body: { title: 'Borrowed', fromShareId: fx.extra.planShare, steps: [{ title: 'One', body: 'Read it.' }] } }),
+    expect: nobody(),
+  },
+  'DELETE /api/clubs/:clubId/invites/:inviteId — club B, club A’s invite': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/invites/${fx.extra.invite}` }),
+    expect: nobody(),
+  },
+  'PUT /api/clubs/:clubId/members/:userId — club B, club A’s member': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/members/${fx.users.member.id}`, body: { role: 'mentor' } }),
+    expect: nobody(),
+  },
+  'DELETE /api/clubs/:clubId/members/:userId — club B, club A’s member': {
+    request: (fx) => ({ path: `/api/clubs/${fx.clubB}/members/${fx.users.member.id}` }),
+    expect: nobody(),
+  },
+  // A lesson's link is the club's: its maker (the mentor) and club A's organizer manage it.
+  'GET /api/share-links — club A’s lesson link': {
+    request: (fx) => ({ path: `/api/share-links?itemType=lesson&itemId=${fx.extra.lesson}` }),
+    expect: { ...nobody(), mentor: 'ok', organizerA: 'ok' },
+    mayShow: (fx) => [fx.extra.lesson],
+  },
+  'DELETE /api/share-links/:linkId — club A’s lesson link': {
+    request: (fx) => ({ path: `/api/share-links/${fx.extra.lessonLink}` }),
+    expect: { ...nobody(), mentor: 'ok', organizerA: 'ok' },
+  },
+};
+
+export const shorthands = { all, signedIn, ownerOnly, clubA, nobody };

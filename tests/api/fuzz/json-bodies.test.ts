@@ -118,7 +118,7 @@ describe('fuzzed JSON bodies (fast-check)', () => {
   for (const target of TARGETS) {
     it(`${target.method.toUpperCase()} ${target.name}: never 5xx; 400 exactly when the schema refuses; a 4xx writes nothing`, async () => {
       const ds = ctx.deps.dataSource;
-      const fx = await buildFixture(ds, ctx.deps.config.session.secret);
+      const fx = await buildFixture(ds, ctx.deps.config);
       const digestSql = await digestQuery(ds);
       const digest = async () => ((await ds.query(digestSql)) as { h: string }[])[0]!.h;
       const url = target.path(fx);
@@ -163,7 +163,7 @@ describe('fuzzed JSON bodies (fast-check)', () => {
 
   it('GET readings query: never 5xx; 400 exactly when the query schema refuses', async () => {
     const ds = ctx.deps.dataSource;
-    const fx = await buildFixture(ds, ctx.deps.config.session.secret);
+    const fx = await buildFixture(ds, ctx.deps.config);
     const value = fc.oneof(fc.string({ maxLength: 12 }), fc.integer({ min: -5, max: 300 }).map(String), fc.constantFrom('1e3', '0x10', 'NaN', '', '2.5', ' 7'));
     const queryArb = fc.dictionary(fc.oneof(fc.constantFrom('page', 'pageSize'), fc.string({ minLength: 1, maxLength: 8 })), fc.oneof(value, fc.array(value, { minLength: 2, maxLength: 3 })), { maxKeys: 3 });
     await fc.assert(
@@ -181,7 +181,7 @@ describe('fuzzed JSON bodies (fast-check)', () => {
   });
 
   it('answers a body of 99 KB of text in one field with 400 fast, and 200 KB with 413', async () => {
-    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config.session.secret);
+    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config);
     for (const target of TARGETS) {
       const valid = typeof target.valid === 'function' ? target.valid(fx) : target.valid;
       const field = Object.keys(valid)[0]!;

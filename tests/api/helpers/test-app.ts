@@ -68,6 +68,7 @@ export function useTestApp(options: { env?: Record<string, string>; extraApiRout
       DATABASE_URL: databaseUrl(),
       APP_URL: TEST_APP_URL,
       SESSION_SECRET: 'test-secret-that-is-long-enough-0123456789',
+      UNSUBSCRIBE_SECRET: 'test-unsubscribe-key-long-enough-0123456789',
       SMTP_HOST: '127.0.0.1',
       SMTP_PORT: String(ctx.mail.smtpPort),
       MAIL_FAKE_URL: ctx.mail.url,

@@ -17,7 +17,7 @@ const as = (cookie: string) => ({
 
 describe('S12: the readings export is safe to open in a spreadsheet (OWASP CSV injection, ASVS 1.2.10)', () => {
   it('prefixes every cell that would start a formula with a quote, and serves it as a download', async () => {
-    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config.session.secret);
+    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config);
     const keeper = as(fx.cookies.member);
     const base = `/api/tanks/${fx.tanks.member}/readings`;
     const notes = ['=HYPERLINK("http://example.invalid","x")', '+1+2', '-3+4', '@SUM(A1:A2)', '=cmd|"/c calc"!A0'];
@@ -38,7 +38,7 @@ describe('S12: the readings export is safe to open in a spreadsheet (OWASP CSV i
 
 describe('S9: no mass assignment (ASVS 15.3.3)', () => {
   it('ignores or refuses owner, id and tank fields: nothing lands on another keeper', async () => {
-    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config.session.secret);
+    const fx = await buildFixture(ctx.deps.dataSource, ctx.deps.config);
     const keeper = as(fx.cookies.member);
     const foreignTank = fx.tanks.keeper;
     const chosenId = '00000000-0000-4000-8000-000000000001';
