@@ -36,6 +36,12 @@ const envSchema = z
      * in production.
      */
     AUTH_ATTEMPT_LIMITS: z.enum(['on', 'off']).default('on'),
+    /** Engine pool limits (server/workers/engine-pool.ts): run time and queue wait per task, heap per worker. */
+    ENGINE_TASK_SECONDS: z.coerce.number().min(1).max(600).default(20),
+    ENGINE_QUEUE_WAIT_SECONDS: z.coerce.number().min(1).max(600).default(10),
+    ENGINE_HEAP_MB: z.coerce.number().int().min(64).max(8192).default(512),
+    /** Heavy engine requests one account may have running at once, over every server process. */
+    ENGINE_REQUESTS_PER_ACCOUNT: z.coerce.number().int().min(1).max(64).default(2),
   })
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
@@ -61,6 +67,7 @@ export interface Config {
   jobsEnabled: boolean;
   /** Attempt limits on sign-up, password reset, forgot-password and invite accept. */
   attemptLimitsEnabled: boolean;
+  engine: { taskMs: number; queueWaitMs: number; heapMb: number; requestsPerAccount: number };
 }
 
 export class ConfigError extends Error {
@@ -111,5 +118,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxy: parseTrustProxy(e.TRUST_PROXY),
     jobsEnabled: e.JOBS === 'on',
     attemptLimitsEnabled: e.AUTH_ATTEMPT_LIMITS === 'on',
+    engine: {
+      taskMs: e.ENGINE_TASK_SECONDS * 1000,
+      queueWaitMs: e.ENGINE_QUEUE_WAIT_SECONDS * 1000,
+      heapMb: e.ENGINE_HEAP_MB,
+      requestsPerAccount: e.ENGINE_REQUESTS_PER_ACCOUNT,
+    },
   };
 }

@@ -24,9 +24,12 @@ import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble
 import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
 import type { ScenarioInput } from '../../shared/schemas/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
+import { overEnsembleBudgetFields } from '../../simulation/work-budget.js';
 
 export type EngineTask =
   | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
+  /** The central forecast's TAN and nitrite by day (the reading-alert job compares a test with it). */
+  | { kind: 'forecast-series'; scenario: ScenarioInput; horizonDays: number }
   | { kind: 'addition'; request: Omit<AdditionRequest, 'scenario'> & { scenario: ScenarioInput } }
   | { kind: 'removal'; request: Omit<RemovalRequest, 'scenario'> & { scenario: ScenarioInput } }
   | { kind: 'rescue'; request: Omit<RescueRequest, 'scenario'> & { scenario: ScenarioInput } }
@@ -61,6 +64,10 @@ function run(task: EngineTask): unknown {
         explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED)],
       };
     }
+    case 'forecast-series': {
+      const { series } = forecastParsed(parseScenario(task.scenario), { horizonDays: task.horizonDays });
+      return { days: series.days, tanMgN: series.tanMgN, no2MgN: series.no2MgN };
+    }
     case 'addition':
       return fastestSafeSchedule({ ...task.request, scenario: parseScenario(task.request.scenario) });
     case 'removal':
@@ -70,7 +77,11 @@ function run(task: EngineTask): unknown {
     case 'ensemble': {
       const scenario = parseScenario(task.scenario);
       const seed = task.seed ?? DEFAULT_SEED;
-      const result = runEnsemble(scenario, { members: task.members ?? MIN_BAND_MEMBERS, seed }, task.horizonDays ? { horizonDays: task.horizonDays } : {});
+      const members = task.members ?? MIN_BAND_MEMBERS;
+      // Members × (entries + days) within the work budget, refused naming `members` before any run.
+      const over = overEnsembleBudgetFields(scenario, task.horizonDays ?? scenario.horizonDays ?? 60, members, 'members');
+      if (over) throw new ScenarioError(over);
+      const result = runEnsemble(scenario, { members, seed }, task.horizonDays ? { horizonDays: task.horizonDays } : {});
       return {
         band: result.band,
         members: result.forecasts.length,
