@@ -18,10 +18,11 @@ export const MAX_TIMELINE_ENTRIES = 2000;
 
 /**
  * Most work units (timeline entries + forecast days, summed over every forecast) one
- * multi-forecast request may ask for before it starts: ~12 s of one core at ~30 µs a unit. A
- * 1024-member band of a 180-day plan fits; 1024 members over a year does not.
+ * multi-forecast request may ask for before it starts: ~5 s of one core at the ~25 µs a unit
+ * measured for a 256-member year (2.3 s). A 1024-member band of a 180-day plan fits; 1024
+ * members over a year (~9 s) does not, 540 do.
  */
-export const MAX_ENSEMBLE_WORK = 400_000;
+export const MAX_ENSEMBLE_WORK = 200_000;
 
 /** What the count needs of a scenario (structural, so a raw or parsed scenario both fit). */
 export interface BudgetScenario {
