@@ -52,7 +52,8 @@ export const removalRequestSchema = z.object({
   restockDay: z.number().int().min(1).max(3650),
   restock: z.array(fishGroupSchema).max(200).optional(),
   solution: ammoniaSolutionSchema.optional(),
-  daysAfterRestock: z.number().int().min(1).max(365).optional(),
+  // The biofilter settles to a new load within weeks [practice]; four months covers any restock.
+  daysAfterRestock: z.number().int().min(1).max(120).optional(),
   settings: adviceSettingsSchema.optional(),
 });
 
@@ -60,7 +61,8 @@ export const rescueRequestSchema = z.object({
   scenario: scenarioSchema,
   // A rescue is planned in days and whole-percent water changes (a keeper measures a change by
   // buckets or a marked tank, not to a tenth of a percent): at most 100 candidate sizes a day.
-  horizonDays: z.number().min(1, 'At least 1 day.').max(365).optional(),
+  // A rescue covers the spike in front of the keeper: weeks, not a year [practice].
+  horizonDays: z.number().min(1, 'At least 1 day.').max(90, 'At most 90 days.').optional(),
   maxPercent: z.number().min(1, 'At least 1 %.').max(100).optional(),
   stepPercent: z.number().int('Use whole percent.').min(1, 'At least 1 %.').max(50).optional(),
   minPercent: z.number().min(1, 'At least 1 %.').max(100).optional(),
@@ -78,7 +80,8 @@ export const calibrationRequestSchema = z.object({
     .max(2000),
   kits: z.object({ tan: kitSchema.optional(), no2: kitSchema.optional() }).optional(),
   fit: z.array(z.enum(['ao', 'no', 'growth'])).min(1).max(3).optional(),
-  forecastDays: z.number().int().min(1).max(365).optional(),
+  // A fit to a few weeks of tests says little about the tank more than three months on.
+  forecastDays: z.number().int().min(1).max(90).optional(),
   members: z.number().int().min(64).max(1024).optional(),
   seed: z.number().int().optional(),
 });
