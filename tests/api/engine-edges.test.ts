@@ -142,71 +142,82 @@ async function setUpLanes() {
   }
 }
 
+/** Runs one group of targets' edge cases; see the tests below. */
+async function runEdges(group: Target[]) {
+  await setUpLanes();
+  // Start every engine thread first: a worker's start-up (tsx loading the engine) counts as
+  // queue wait and on a busy machine may pass it (503 engine_busy); it is not what this measures.
+  await Promise.all(
+    lanes.map(async (l) => {
+      let status = 0;
+      for (let i = 0; i < 10 && status !== 200; i++) status = (await l.keeper.post(`/api/tanks/${l.tankId}/ensemble`, { members: 64, horizonDays: 5 })).status;
+      expect(status).toBe(200);
+    }),
+  );
+  const all = group.flatMap((t) => t.cases.map((c) => ({ target: t, edge: c })));
+  expect(all.length).toBeGreaterThan(10);
+
+  // The health check, every 50 ms from a client of its own, while the edge cases run.
+  const health: number[] = [];
+  let running = true;
+  const probe = (async () => {
+    const { client } = await import('./helpers/test-app.js');
+    const anon = client(ctx.app);
+    while (running) {
+      const t0 = performance.now();
+      const res = await anon.get('/api/health');
+      health.push(performance.now() - t0);
+      expect(res.status).toBe(200);
+      await new Promise((r) => setTimeout(r, 50));
+    }
+  })();
+  const loop = monitorEventLoopDelay({ resolution: 10 });
+  loop.enable();
+
+  const slowest: { label: string; ms: number }[] = [];
+  const failures: string[] = [];
+  const t0 = performance.now();
+  await withConcurrency(all, LANES, async ({ target, edge }, lane) => {
+    const { keeper, tankId } = lanes[lane]!;
+    const name = `${target.label}: ${edge.path.join('.')} = ${edge.value}`;
+    const started = performance.now();
+    const res = await target.send(keeper, tankId, edge.body);
+    const ms = performance.now() - started;
+    slowest.push({ label: `${name} → ${res.status}`, ms });
+    const fields = Object.keys(res.body.error?.fields ?? {});
+    if (ms > 10_000) failures.push(`${name}: ${Math.round(ms)} ms`);
+    if (res.status === 429) failures.push(`${name}: 429 (lanes must not share an account)`);
+    else if (res.status >= 500) failures.push(`${name}: ${res.status} ${JSON.stringify(res.body)}`);
+    else if (res.status >= 400 && fields.length === 0) failures.push(`${name}: ${res.status} names no field: ${JSON.stringify(res.body)}`);
+    else if (edge.refused && !fields.includes(edge.path.join('.'))) failures.push(`${name}: expected a 400 naming it, got ${res.status} ${JSON.stringify(res.body)}`);
+  });
+  const totalMs = performance.now() - t0;
+  running = false;
+  await probe;
+  loop.disable();
+
+  health.sort((a, b) => a - b);
+  const p99 = health[Math.min(health.length - 1, Math.floor(health.length * 0.99))]!;
+  slowest.sort((a, b) => b.ms - a.ms);
+  console.log(
+    `[edges] ${all.length} cases in ${(totalMs / 1000).toFixed(1)} s; health p99 ${p99.toFixed(0)} ms over ${health.length} probes; ` +
+      `event-loop delay max ${(loop.max / 1e6).toFixed(0)} ms; slowest: ${slowest.slice(0, 3).map((s) => `${s.label} ${Math.round(s.ms)} ms`).join('; ')}`,
+  );
+  expect(failures).toEqual([]);
+  expect(p99).toBeLessThan(200);
+  // The process is alive and the pool still answers after all of it.
+  const after = await lanes[0]!.keeper.post(`/api/tanks/${lanes[0]!.tankId}/ensemble`, { members: 64, horizonDays: 10 });
+  expect(after.status).toBe(200);
+}
+
 describe('engine cost at the edges of what the schemas accept', () => {
-  it('every numeric field at its smallest and largest accepted value answers within 10 s with 2xx or a 4xx naming the field, while /api/health stays fast', async () => {
-    await setUpLanes();
-    // Start every engine thread first: a worker's start-up (tsx loading the engine) counts as
-    // queue wait and on a busy machine may pass it (503 engine_busy); it is not what this measures.
-    await Promise.all(
-      lanes.map(async (l) => {
-        let status = 0;
-        for (let i = 0; i < 10 && status !== 200; i++) status = (await l.keeper.post(`/api/tanks/${l.tankId}/ensemble`, { members: 64, horizonDays: 5 })).status;
-        expect(status).toBe(200);
-      }),
-    );
-    const all = targets.flatMap((t) => t.cases.map((c) => ({ target: t, edge: c })));
-    expect(all.length).toBeGreaterThan(100);
+  it('every numeric field of plans, advice and ensembles at its smallest and largest accepted value answers within 10 s with 2xx or a 4xx naming the field, while /api/health stays fast', async () => {
+    await runEdges(targets.filter((t) => t.label !== 'calibration'));
+  }, 600_000);
 
-    // The health check, every 50 ms from a client of its own, while the edge cases run.
-    const health: number[] = [];
-    let running = true;
-    const probe = (async () => {
-      const { client } = await import('./helpers/test-app.js');
-      const anon = client(ctx.app);
-      while (running) {
-        const t0 = performance.now();
-        const res = await anon.get('/api/health');
-        health.push(performance.now() - t0);
-        expect(res.status).toBe(200);
-        await new Promise((r) => setTimeout(r, 50));
-      }
-    })();
-    const loop = monitorEventLoopDelay({ resolution: 10 });
-    loop.enable();
-
-    const slowest: { label: string; ms: number }[] = [];
-    const failures: string[] = [];
-    const t0 = performance.now();
-    await withConcurrency(all, LANES, async ({ target, edge }, lane) => {
-      const { keeper, tankId } = lanes[lane]!;
-      const name = `${target.label}: ${edge.path.join('.')} = ${edge.value}`;
-      const started = performance.now();
-      const res = await target.send(keeper, tankId, edge.body);
-      const ms = performance.now() - started;
-      slowest.push({ label: `${name} → ${res.status}`, ms });
-      const fields = Object.keys(res.body.error?.fields ?? {});
-      if (ms > 10_000) failures.push(`${name}: ${Math.round(ms)} ms`);
-      if (res.status === 429) failures.push(`${name}: 429 (lanes must not share an account)`);
-      else if (res.status >= 500) failures.push(`${name}: ${res.status} ${JSON.stringify(res.body)}`);
-      else if (res.status >= 400 && fields.length === 0) failures.push(`${name}: ${res.status} names no field: ${JSON.stringify(res.body)}`);
-      else if (edge.refused && !fields.includes(edge.path.join('.'))) failures.push(`${name}: expected a 400 naming it, got ${res.status} ${JSON.stringify(res.body)}`);
-    });
-    const totalMs = performance.now() - t0;
-    running = false;
-    await probe;
-    loop.disable();
-
-    health.sort((a, b) => a - b);
-    const p99 = health[Math.min(health.length - 1, Math.floor(health.length * 0.99))]!;
-    slowest.sort((a, b) => b.ms - a.ms);
-    console.log(
-      `[edges] ${all.length} cases in ${(totalMs / 1000).toFixed(1)} s; health p99 ${p99.toFixed(0)} ms over ${health.length} probes; ` +
-        `event-loop delay max ${(loop.max / 1e6).toFixed(0)} ms; slowest: ${slowest.slice(0, 3).map((s) => `${s.label} ${Math.round(s.ms)} ms`).join('; ')}`,
-    );
-    expect(failures).toEqual([]);
-    expect(p99).toBeLessThan(200);
-    // The process is alive and the pool still answers after all of it.
-    const after = await lanes[0]!.keeper.post(`/api/tanks/${lanes[0]!.tankId}/ensemble`, { members: 64, horizonDays: 10 });
-    expect(after.status).toBe(200);
+  // Kept apart: on a loaded 2-core machine every calibration (even the base body) ran past the
+  // 8 s limit and answered 422 engine_time_limit; see the report of issue 11.
+  it('every numeric field of the calibration body at its edges answers within 10 s with 2xx or a 4xx naming the field', async () => {
+    await runEdges(targets.filter((t) => t.label === 'calibration'));
   }, 600_000);
 });
