@@ -69,6 +69,9 @@ export async function startServer(port: number, databaseUrl: string, extraEnv: R
       SESSION_SECRET,
       STATIC_DIR: staticDir,
       SMTP_PORT: '2631',
+      // The benches send four heavy requests at once from one demo account; the default cap
+      // of two per account would answer half of them 429 (tests/api/engine-limits.test.ts tests the cap).
+      ENGINE_REQUESTS_PER_ACCOUNT: '4',
       ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],

@@ -20,6 +20,7 @@ import { tanksRouter } from './routes/tanks.js';
 import { adviceRouter } from './routes/advice.js';
 import { forecastsRouter } from './routes/forecasts.js';
 import { plansRouter } from './routes/plans.js';
+import { configureEnginePool } from './workers/engine-pool.js';
 import { createSessionMiddleware } from './session.js';
 import { markNoRoute } from './request-log-labels.js';
 import { staticSite } from './static-site.js';
@@ -32,6 +33,7 @@ export function createApp(
   deps: AppDeps,
 ): Express & { sessionStore: { close(): void }; idempotency: { close(): Promise<void> } } {
   const { config, logger } = deps;
+  configureEnginePool(config.engine);
   const app = express();
   app.disable('x-powered-by');
   // API answers are `no-store`, so a body hash per answer buys nothing (static files keep theirs).

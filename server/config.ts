@@ -42,6 +42,12 @@ const envSchema = z
     DB_STATEMENT_TIMEOUT_MS: z.coerce.number().int().min(0).max(600_000).default(15_000),
     /** The development outbox page (/api/dev/outbox): on only for local development; never in production. */
     DEV_OUTBOX: z.enum(['on', 'off']).default('off'),
+    /** Engine pool limits (server/workers/engine-pool.ts): run time and queue wait per task, heap per worker. */
+    ENGINE_TASK_SECONDS: z.coerce.number().min(1).max(600).default(20),
+    ENGINE_QUEUE_WAIT_SECONDS: z.coerce.number().min(1).max(600).default(10),
+    ENGINE_HEAP_MB: z.coerce.number().int().min(64).max(8192).default(512),
+    /** Heavy engine requests one account may have running at once, over every server process. */
+    ENGINE_REQUESTS_PER_ACCOUNT: z.coerce.number().int().min(1).max(64).default(2),
   })
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
@@ -77,6 +83,7 @@ export interface Config {
   dbStatementTimeoutMs: number;
   /** The development outbox is mounted (DEV_OUTBOX=on, never in production). */
   devOutbox: boolean;
+  engine: { taskMs: number; queueWaitMs: number; heapMb: number; requestsPerAccount: number };
 }
 
 export class ConfigError extends Error {
@@ -133,5 +140,11 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       e.UNSUBSCRIBE_SECRET ?? Buffer.from(hkdfSync('sha256', secret, 'shoalshift', 'unsubscribe-links', 32)).toString('base64url'),
     dbStatementTimeoutMs: e.DB_STATEMENT_TIMEOUT_MS,
     devOutbox: e.NODE_ENV !== 'production' && e.DEV_OUTBOX === 'on' && Boolean(e.MAIL_FAKE_URL),
+    engine: {
+      taskMs: e.ENGINE_TASK_SECONDS * 1000,
+      queueWaitMs: e.ENGINE_QUEUE_WAIT_SECONDS * 1000,
+      heapMb: e.ENGINE_HEAP_MB,
+      requestsPerAccount: e.ENGINE_REQUESTS_PER_ACCOUNT,
+    },
   };
 }

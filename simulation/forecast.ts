@@ -23,6 +23,7 @@ import { LoadTooHighError, matureSteadyState } from './steady-state';
 import { daysOver, peakOf, type Excursion, type Peak } from './series-stats';
 import { buildTimeline, doseMgNPerL, type Breakpoint } from './timeline';
 import { MOLAR_MASS } from './units';
+import { overBudgetFields } from './work-budget';
 
 export interface ForecastOptions {
   /** Output interval, days (default 1). */
@@ -243,6 +244,8 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
   const nz = zones.length;
   const model = createModel(zones, V, p);
   const n = model.n;
+  const overBudget = overBudgetFields(scenario, opt.horizon);
+  if (overBudget) throw new ScenarioError(overBudget);
   const timeline = buildTimeline(scenario, opt.horizon, p);
   const from = options.from;
   const t0 = from ? from.day : 0;

@@ -7,9 +7,9 @@ import { Reading } from '../entities/reading.js';
 import { Tank } from '../entities/tank.js';
 import { User } from '../entities/user.js';
 import { readingAlertMail } from '../mail/templates/reading-alert.js';
+import { runEngine } from '../services/engine-runs.js';
 import { scenarioFromPlan } from '../services/scenario-from-plan.js';
 import { freeAmmoniaFraction } from '../../simulation/chemistry.js';
-import { forecastParsed } from '../../simulation/forecast.js';
 import { defaultLimits } from '../../simulation/limits.js';
 import { MOLAR_MASS } from '../../simulation/units.js';
 import { planDay, type JobDeps } from './reminders.js';
@@ -91,13 +91,18 @@ async function activePlanFindings(ds: DataSource, tank: Tank, checked: readonly 
   const lastDay = Math.max(...days);
   if (lastDay < 0) return out;
   const scenario = scenarioFromPlan(tank, await ds.getRepository(Livestock).findBy({ tankId: tank.id }), plan);
-  const result = forecastParsed(scenario, { horizonDays: Math.max(lastDay + 1, 2) });
+  // On the engine pool like every forecast: a heavy plan may take a worker's time, never the main thread's.
+  const { value: series } = await runEngine<{ days: number[]; tanMgN: number[]; no2MgN: number[] }>({
+    kind: 'forecast-series',
+    scenario,
+    horizonDays: Math.max(lastDay + 1, 2),
+  });
   checked.forEach(({ reading, values }, k) => {
     if (days[k] < 0) return;
-    const i = result.series.days.findIndex((d) => d >= days[k]);
+    const i = series.days.findIndex((d) => d >= days[k]);
     if (i < 0) return;
     const limits = defaultLimits({ ph: values.ph, temperatureC: values.temperatureC });
-    out.set(reading.id, forecastFindings(values, result.series.tanMgN[i], result.series.no2MgN[i], limits.freeNh3AsTan.value, limits.nitrite.value));
+    out.set(reading.id, forecastFindings(values, series.tanMgN[i], series.no2MgN[i], limits.freeNh3AsTan.value, limits.nitrite.value));
   });
   return out;
 }

@@ -1,4 +1,5 @@
 import PgBoss from 'pg-boss';
+import { configureEnginePool } from '../workers/engine-pool.js';
 import type { AppDeps } from '../deps.js';
 import { IMPORT_CHECK_QUEUE, READING_CHECK_QUEUE, checkImportedReadings, checkReading, type ImportCheckJob } from './alerts.js';
 import { REMINDER_SCAN_QUEUE, REMINDER_SEND_QUEUE, dueReminders, sendReminder, utcDate, type ReminderJob } from './reminders.js';
@@ -33,6 +34,8 @@ export interface JobRunnerOptions {
  */
 export async function startJobs(deps: Pick<AppDeps, 'config' | 'dataSource' | 'mailer' | 'logger'>, options: JobRunnerOptions = {}): Promise<JobRunner> {
   const { config, logger } = deps;
+  // The alert job's forecasts run on this process's engine pool, under the same limits.
+  configureEnginePool(config.engine);
   const boss = new PgBoss({ connectionString: config.databaseUrl, max: 3, application_name: 'shoalshift-jobs', schedule: options.schedule ?? true });
   boss.on('error', (err) => logger.log('error', 'jobs.error', { error: String(err) }));
   await boss.start();

@@ -22,7 +22,7 @@ import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import type { Tank } from '../entities/tank.js';
 import { notFound, validationFailed } from '../errors.js';
-import { runEngine } from './engine-runs.js';
+import { runEngine, type EngineCaller } from './engine-runs.js';
 import { scenarioTankOf } from './plans.js';
 
 /**
@@ -54,36 +54,36 @@ async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], o
 }
 
 /** Fastest safe schedule for the fish; the plan's own add-fish events are left out (the schedule replaces them). */
-export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>) {
+export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
   const events = (await planEvents(ds, tank, planId)).filter((e) => e.type !== 'add-fish');
   const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365 });
-  const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } });
+  const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } }, caller);
   return additionResponseSchema.parse(value);
 }
 
-export async function removalAdvice(ds: DataSource, tank: Tank, body: z.output<typeof removalAdviceBodySchema>) {
+export async function removalAdvice(ds: DataSource, tank: Tank, body: z.output<typeof removalAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
   const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId), { horizonDays: 365 });
-  const { value } = await runEngine({ kind: 'removal', request: { ...request, scenario } });
+  const { value } = await runEngine({ kind: 'removal', request: { ...request, scenario } }, caller);
   return removalResponseSchema.parse(value);
 }
 
-export async function rescueAdvice(ds: DataSource, tank: Tank, body: z.output<typeof rescueAdviceBodySchema>) {
+export async function rescueAdvice(ds: DataSource, tank: Tank, body: z.output<typeof rescueAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
   const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId));
-  const { value } = await runEngine({ kind: 'rescue', request: { ...request, scenario } });
+  const { value } = await runEngine({ kind: 'rescue', request: { ...request, scenario } }, caller);
   return rescueResponseSchema.parse(value);
 }
 
-export async function ensembleAdvice(ds: DataSource, tank: Tank, body: z.output<typeof ensembleBodySchema>) {
+export async function ensembleAdvice(ds: DataSource, tank: Tank, body: z.output<typeof ensembleBodySchema>, caller?: EngineCaller) {
   const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, body.planId));
-  const { value } = await runEngine({ kind: 'ensemble', scenario, members: body.members, seed: body.seed, horizonDays: body.horizonDays });
+  const { value } = await runEngine({ kind: 'ensemble', scenario, members: body.members, seed: body.seed, horizonDays: body.horizonDays }, caller);
   return ensembleResponseSchema.parse(value);
 }
 
 /** Fits the model to the tank's own logged ammonia and nitrite tests (day 0 = the first one used). */
-export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.output<typeof calibrationBodySchema>, now = new Date()) {
+export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.output<typeof calibrationBodySchema>, caller?: EngineCaller, now = new Date()) {
   const since = new Date(now.getTime() - (body.sinceDays ?? CALIBRATION_DEFAULT_DAYS) * DAY_MS);
   const rows = (
     await ds.getRepository(Reading).find({
@@ -106,12 +106,12 @@ export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.outp
   const lastDay = readings.at(-1)!.day;
   const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1) });
   const { sinceDays: _since, ...options } = body;
-  const { value } = await runEngine({ kind: 'calibration', request: { ...options, scenario, readings } });
+  const { value } = await runEngine({ kind: 'calibration', request: { ...options, scenario, readings } }, caller);
   return { ...calibrationResponseSchema.parse(value), readingsUsed: rows.length, firstReadingAt: rows[0].takenAt.toISOString() };
 }
 
-export async function capacityTestAdvice(ds: DataSource, tank: Tank, body: z.output<typeof capacityTestBodySchema>) {
+export async function capacityTestAdvice(ds: DataSource, tank: Tank, body: z.output<typeof capacityTestBodySchema>, caller?: EngineCaller) {
   const scenario = await scenarioOf(ds, tank, [], body.start ? { start: body.start } : {});
-  const { value } = await runEngine({ kind: 'capacity-test', scenario, solution: body.solution, limits: body.limits, test: body.test });
+  const { value } = await runEngine({ kind: 'capacity-test', scenario, solution: body.solution, limits: body.limits, test: body.test }, caller);
   return capacityTestResponseSchema.parse(value);
 }

@@ -6,7 +6,7 @@ import { tankScenario, type StartReason } from '../../shared/tank-scenario.js';
 import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAUTIONS } from '../../simulation/advice/cautions.js';
 import { validationFailed } from '../errors.js';
 import { FORECAST_BAND_MEMBERS } from '../workers/engine-tasks.js';
-import { runEngine } from './engine-runs.js';
+import { runEngine, type EngineCaller } from './engine-runs.js';
 import { ENGINE_VERSION, inputHash, readCache, writeCache } from './forecast-cache.js';
 import { scenarioTankOf, type OwnPlan } from './plans.js';
 
@@ -45,11 +45,17 @@ export function planCautions(events: readonly ScenarioEvent[]): string[] {
  */
 const inFlight = new Map<string, Promise<{ stored: StoredForecast; computedAt: Date }>>();
 
-function computeOnce(ds: DataSource, hash: string, scenario: Scenario): Promise<{ stored: StoredForecast; computedAt: Date }> {
+/** A signal that never fires: a shared run is not the first client's to cancel. */
+const NEVER = new AbortController().signal;
+
+function computeOnce(ds: DataSource, hash: string, scenario: Scenario, caller?: EngineCaller): Promise<{ stored: StoredForecast; computedAt: Date }> {
   const running = inFlight.get(hash);
   if (running) return running;
+  // The run counts against the first caller's slots but finishes if that client goes away: a
+  // later identical request may share it, and its result is cached for the next one.
+  const shared = caller ? { claim: caller.claim, signal: NEVER } : undefined;
   const job = (async () => {
-    const { value, ms } = await runEngine<StoredForecast>({ kind: 'forecast', scenario, band: true });
+    const { value, ms } = await runEngine<StoredForecast>({ kind: 'forecast', scenario, band: true }, shared);
     return { stored: value, computedAt: await writeCache(ds, hash, value, ms) };
   })().finally(() => inFlight.delete(hash));
   inFlight.set(hash, job);
@@ -60,7 +66,7 @@ function computeOnce(ds: DataSource, hash: string, scenario: Scenario): Promise<
  * The saved plan's forecast with its uncertainty band, from the cache when the same inputs ran
  * before (the plan's name is not an input), else from the engine pool (once per input at a time).
  */
-export async function forecastPlan(ds: DataSource, own: OwnPlan): Promise<PlanForecastResponse> {
+export async function forecastPlan(ds: DataSource, own: OwnPlan, caller?: EngineCaller): Promise<PlanForecastResponse> {
   const { scenario, startReason } = await planScenario(ds, own);
   const hash = inputHash('plan-forecast', { scenario: { ...scenario, name: undefined }, bandMembers: FORECAST_BAND_MEMBERS });
   const hit = await readCache<StoredForecast>(ds, hash);
@@ -70,7 +76,7 @@ export async function forecastPlan(ds: DataSource, own: OwnPlan): Promise<PlanFo
     stored = hit.result;
     computedAt = hit.createdAt;
   } else {
-    ({ stored, computedAt } = await computeOnce(ds, hash, scenario));
+    ({ stored, computedAt } = await computeOnce(ds, hash, scenario, caller));
   }
   return {
     planId: own.plan.id,

@@ -22,11 +22,14 @@ import {
 } from '../../simulation/advice/index.js';
 import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble.js';
 import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
-import type { ScenarioInput } from '../../shared/schemas/scenario.js';
+import type { Scenario, ScenarioInput } from '../../shared/schemas/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
+import { overEnsembleBudgetFields } from '../../simulation/work-budget.js';
 
 export type EngineTask =
   | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
+  /** The central forecast's TAN and nitrite by day (the reading-alert job compares a test with it). */
+  | { kind: 'forecast-series'; scenario: ScenarioInput; horizonDays: number }
   | { kind: 'addition'; request: Omit<AdditionRequest, 'scenario'> & { scenario: ScenarioInput } }
   | { kind: 'removal'; request: Omit<RemovalRequest, 'scenario'> & { scenario: ScenarioInput } }
   | { kind: 'rescue'; request: Omit<RescueRequest, 'scenario'> & { scenario: ScenarioInput } }
@@ -49,6 +52,15 @@ export type EngineResult =
 /** Band members for a saved plan's forecast (the advice layer's minimum: ensemble.ts). */
 export const FORECAST_BAND_MEMBERS = MIN_BAND_MEMBERS;
 
+/**
+ * Refuses, before any run, advice whose ensembles (about `bands` of `members` forecasts over
+ * `horizonDays`) exceed the engine's work budget, naming `field`.
+ */
+function withinBudget(scenario: Scenario, horizonDays: number, members: number, bands: number, field: string): void {
+  const over = overEnsembleBudgetFields(scenario, horizonDays, members * bands, field);
+  if (over) throw new ScenarioError(over);
+}
+
 function run(task: EngineTask): unknown {
   switch (task.kind) {
     case 'forecast': {
@@ -61,16 +73,35 @@ function run(task: EngineTask): unknown {
         explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED)],
       };
     }
-    case 'addition':
-      return fastestSafeSchedule({ ...task.request, scenario: parseScenario(task.request.scenario) });
-    case 'removal':
-      return supplementaryDosing({ ...task.request, scenario: parseScenario(task.request.scenario) });
-    case 'rescue':
-      return rescueWaterChanges({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'forecast-series': {
+      const { series } = forecastParsed(parseScenario(task.scenario), { horizonDays: task.horizonDays });
+      return { days: series.days, tanMgN: series.tanMgN, no2MgN: series.no2MgN };
+    }
+    // Each advice judges a plan with and without the change on `members` draws: two bands.
+    case 'addition': {
+      const scenario = parseScenario(task.request.scenario);
+      withinBudget(scenario, scenario.horizonDays ?? 365, task.request.settings?.members ?? MIN_BAND_MEMBERS, 2, 'settings.members');
+      return fastestSafeSchedule({ ...task.request, scenario });
+    }
+    case 'removal': {
+      const scenario = parseScenario(task.request.scenario);
+      const horizon = task.request.restockDay + (task.request.daysAfterRestock ?? 30);
+      withinBudget(scenario, horizon, task.request.settings?.members ?? MIN_BAND_MEMBERS, 2, 'settings.members');
+      return supplementaryDosing({ ...task.request, scenario });
+    }
+    case 'rescue': {
+      const scenario = parseScenario(task.request.scenario);
+      withinBudget(scenario, task.request.horizonDays ?? scenario.horizonDays ?? 60, task.request.settings?.members ?? MIN_BAND_MEMBERS, 2, 'settings.members');
+      return rescueWaterChanges({ ...task.request, scenario });
+    }
     case 'ensemble': {
       const scenario = parseScenario(task.scenario);
       const seed = task.seed ?? DEFAULT_SEED;
-      const result = runEnsemble(scenario, { members: task.members ?? MIN_BAND_MEMBERS, seed }, task.horizonDays ? { horizonDays: task.horizonDays } : {});
+      const members = task.members ?? MIN_BAND_MEMBERS;
+      // Members × (entries + days) within the work budget, refused naming `members` before any run.
+      const over = overEnsembleBudgetFields(scenario, task.horizonDays ?? scenario.horizonDays ?? 60, members, 'members');
+      if (over) throw new ScenarioError(over);
+      const result = runEnsemble(scenario, { members, seed }, task.horizonDays ? { horizonDays: task.horizonDays } : {});
       return {
         band: result.band,
         members: result.forecasts.length,
@@ -79,8 +110,13 @@ function run(task: EngineTask): unknown {
         cautions: [...ESTIMATE_CAUTIONS],
       };
     }
-    case 'calibration':
-      return calibrate({ ...task.request, scenario: parseScenario(task.request.scenario) });
+    case 'calibration': {
+      const scenario = parseScenario(task.request.scenario);
+      const lastDay = Math.max(0, ...task.request.readings.map((r) => r.day));
+      // The prior and the calibrated band, at half-day samples (two units a day).
+      withinBudget(scenario, 2 * (lastDay + (task.request.forecastDays ?? 30)), task.request.members ?? MIN_BAND_MEMBERS, 2, 'members');
+      return calibrate({ ...task.request, scenario });
+    }
     case 'capacity-test': {
       const scenario = parseScenario(task.scenario);
       const protocol = capacityTestProtocol(scenario, task.solution, task.limits);

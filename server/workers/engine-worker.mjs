@@ -11,4 +11,9 @@ const tasks = await import('./engine-tasks.ts');
 const runEngineTask = tasks.runEngineTask ?? tasks.default?.runEngineTask;
 if (typeof runEngineTask !== 'function') throw new Error('engine-tasks.ts exports no runEngineTask');
 
-export default runEngineTask;
+/** `started` is a port the pool listens on: the run-time limit counts from this message. */
+export default function run({ task, started }) {
+  started.postMessage(0);
+  started.close();
+  return runEngineTask(task);
+}

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import { eventSchema, fishGroupSchema, startSchema } from './scenario';
 import { planStatusSchema } from './tank';
+import { MAX_HORIZON_DAYS } from '../tank-scenario';
+import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from '../../simulation/work-budget';
 import {
   additionRequestSchema,
   adviceSettingsSchema,
@@ -29,7 +31,17 @@ const isoDate = z
 export const PLAN_EVENT_LIMIT = 200;
 
 const planName = z.string().trim().min(1, 'Give the plan a name.').max(80, 'At most 80 characters.');
-const planEvents = z.array(eventSchema).max(PLAN_EVENT_LIMIT, `At most ${PLAN_EVENT_LIMIT} events.`);
+/**
+ * A saved plan is forecast over at most MAX_HORIZON_DAYS (advice runs it that long), so its
+ * events must fit the engine's work budget there: refused when saved, not when a job runs it.
+ */
+const planEvents = z
+  .array(eventSchema)
+  .max(PLAN_EVENT_LIMIT, `At most ${PLAN_EVENT_LIMIT} events.`)
+  .superRefine((events, ctx) => {
+    const count = countTimelineEntries({ tank: {}, events }, MAX_HORIZON_DAYS);
+    if (count.entries > MAX_TIMELINE_ENTRIES) ctx.addIssue({ code: 'custom', message: overBudgetMessage(count, MAX_HORIZON_DAYS), path: count.largest.path.slice(1) });
+  });
 
 export const planCreateSchema = z.object({
   name: planName,
@@ -116,7 +128,7 @@ export const ensembleBodySchema = z.object({
   ...planRef,
   members: z.number().int().min(64).max(1024).optional(),
   seed: z.number().int().optional(),
-  horizonDays: z.number().gt(0).max(365).optional(),
+  horizonDays: z.number().min(1, 'At least 1 day.').max(365).optional(),
 });
 export const calibrationBodySchema = calibrationRequestSchema
   .omit({ scenario: true, readings: true })

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { fieldErrors } from '../api-error';
+import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from '../../simulation/work-budget';
 
 /**
  * The scenario format: one tank, how it starts, and a timeline of events. Single source of
@@ -27,6 +28,11 @@ const day = z.number().min(0, 'Days count from 0.').max(3650, 'At most 10 years 
 const concentration = z.number().min(0, 'Must be 0 or more.').max(1000, 'Above 1000 mg/L is not a tank.');
 const share = z.number().min(0, 'Must be between 0 and 1.').max(1, 'Must be between 0 and 1.');
 const factor = z.number().gt(0, 'Must be above 0.').max(1, 'At most 1.');
+
+/** Shortest dose repeat, days: 6 h (keepers dose at most a few times a day) [practice]. */
+export const MIN_DOSE_REPEAT_DAYS = 0.25;
+/** Shortest medication, aeration loss or forecast, days: an hour; less is below what a test or the model resolves. */
+export const MIN_DURATION_DAYS = 1 / 24;
 
 export const zoneSchema = z
   .object({
@@ -83,7 +89,8 @@ export const tankSchema = z
     routineWaterChange: z
       .object({
         percent: z.number().gt(0, 'Percent must be above 0.').max(90, 'At most 90 %.'),
-        everyDays: z.number().gt(0, 'Must be above 0 days.').max(365, 'At most 365 days.'),
+        // At most daily, as the tank form allows: a shorter interval only multiplies timeline entries.
+        everyDays: z.number().min(1, 'At least 1 day apart.').max(365, 'At most 365 days.'),
       })
       .optional(),
   })
@@ -136,7 +143,7 @@ const removal = {
   day,
   species: z.string().min(1).optional(),
   name: z.string().min(1).optional(),
-  count: z.number().int('Count must be a whole number.').min(1, 'Count must be at least 1.'),
+  count: z.number().int('Count must be a whole number.').min(1, 'Count must be at least 1.').max(100000),
 };
 
 export const eventSchema = z.discriminatedUnion('type', [
@@ -156,7 +163,8 @@ export const eventSchema = z.discriminatedUnion('type', [
     day,
     amount: doseAmountSchema,
     /** Repeat the same dose every N days… */
-    repeatEveryDays: z.number().gt(0).max(365).optional(),
+    // Keepers dose at most a few times a day [practice]; 6 h apart is the shortest repeat.
+    repeatEveryDays: z.number().min(MIN_DOSE_REPEAT_DAYS, 'Repeat at most four times a day (0.25 days apart).').max(365).optional(),
     /** …this many times in all (including the first). */
     repeatCount: z.number().int().min(1).max(1000).optional(),
   }),
@@ -172,7 +180,7 @@ export const eventSchema = z.discriminatedUnion('type', [
     type: z.literal('medication'),
     day,
     name: z.string().max(80).optional(),
-    durationDays: z.number().gt(0).max(365),
+    durationDays: z.number().min(MIN_DURATION_DAYS, 'At least an hour (1/24 day).').max(365),
     /** Multiplier on nitrifier activity and growth while it acts (0 = full stop, 1 = harmless). */
     oxidationMultiplier: share,
   }),
@@ -180,7 +188,7 @@ export const eventSchema = z.discriminatedUnion('type', [
   z.object({
     type: z.literal('aeration-loss'),
     day,
-    durationDays: z.number().gt(0).max(365),
+    durationDays: z.number().min(MIN_DURATION_DAYS, 'At least an hour (1/24 day).').max(365),
     /** Share of the usual dissolved oxygen left while it lasts (0–1). */
     oxygenShare: share,
   }),
@@ -194,7 +202,7 @@ export const startSchema = z.discriminatedUnion('kind', [
   /** Capacities (mg N/day at the tank temperature) given per zone, e.g. from calibration. */
   z.object({
     kind: z.literal('explicit'),
-    capacities: z.array(z.object({ zoneId: z.string().min(1), aoMgNPerDay: z.number().min(0), noMgNPerDay: z.number().min(0) })),
+    capacities: z.array(z.object({ zoneId: z.string().min(1), aoMgNPerDay: z.number().min(0).max(1e7), noMgNPerDay: z.number().min(0).max(1e7) })).max(8),
   }),
 ]);
 
@@ -216,7 +224,7 @@ export const scenarioSchema = z
     feeding: feedingSchema.default({ mode: 'body-mass' }),
     events: z.array(eventSchema).max(2000).default([]),
     /** Forecast length when the caller gives none. */
-    horizonDays: z.number().gt(0).max(3650).optional(),
+    horizonDays: z.number().min(MIN_DURATION_DAYS, 'At least an hour (1/24 day).').max(3650).optional(),
   })
   .superRefine((s, ctx) => {
     const ids = new Set(s.tank.zones.map((z) => z.id));
@@ -236,6 +244,11 @@ export const scenarioSchema = z
         ctx.addIssue({ code: 'custom', message: `Day ${e.day} is after the forecast horizon (${s.horizonDays}).`, path: ['events', i, 'day'] });
       }
     });
+    // The engine's work budget (simulation/work-budget.ts), at the edge when the horizon is known.
+    if (s.horizonDays !== undefined) {
+      const count = countTimelineEntries(s, s.horizonDays);
+      if (count.entries > MAX_TIMELINE_ENTRIES) ctx.addIssue({ code: 'custom', message: overBudgetMessage(count, s.horizonDays), path: count.largest.path });
+    }
   });
 
 export type Zone = z.output<typeof zoneSchema>;

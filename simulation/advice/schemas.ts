@@ -12,8 +12,9 @@ const day = z.number().min(0).max(3650);
 export const limitSettingsSchema = z.object({
   nitriteBasis: z.enum(['culture-practice', 'chloride']).optional(),
   freeAmmoniaGuideline: z.enum(['ccme', 'eifac']).optional(),
-  sensitivityFactor: z.number().gt(0).max(1).optional(),
-  overrides: z.partialRecord(limitKey, z.number().gt(0)).optional(),
+  sensitivityFactor: z.number().min(0.01, 'At least 0.01.').max(1).optional(),
+  // A limit above 1000 mg/L is no limit at all (and no tank reaches it).
+  overrides: z.partialRecord(limitKey, z.number().gt(0).max(1000)).optional(),
 });
 
 export const adviceSettingsSchema = z.object({
@@ -33,7 +34,7 @@ export const additionRequestSchema = z.object({
   fish: fishGroupSchema,
   constraints: z
     .object({
-      minBatch: z.number().int().min(1).optional(),
+      minBatch: z.number().int().min(1).max(100000).optional(),
       maxBatches: z.number().int().min(1).max(20).optional(),
       firstDay: day.optional(),
       latestFinishDay: day.optional(),
@@ -46,25 +47,30 @@ export const additionRequestSchema = z.object({
 
 export const removalRequestSchema = z.object({
   scenario: scenarioSchema,
-  removals: z.array(z.object({ species: z.string().min(1).optional(), name: z.string().min(1).optional(), count: z.number().int().min(1) })).max(200),
+  removals: z.array(z.object({ species: z.string().min(1).optional(), name: z.string().min(1).optional(), count: z.number().int().min(1).max(100000) })).max(200),
   removalDay: day.optional(),
   restockDay: z.number().int().min(1).max(3650),
   restock: z.array(fishGroupSchema).max(200).optional(),
   solution: ammoniaSolutionSchema.optional(),
-  daysAfterRestock: z.number().int().min(1).max(365).optional(),
+  // The biofilter settles to a new load within weeks [practice]; four months covers any restock.
+  daysAfterRestock: z.number().int().min(1).max(120).optional(),
   settings: adviceSettingsSchema.optional(),
 });
 
 export const rescueRequestSchema = z.object({
   scenario: scenarioSchema,
-  horizonDays: z.number().gt(0).max(365).optional(),
-  maxPercent: z.number().gt(0).max(100).optional(),
-  stepPercent: z.number().gt(0).max(50).optional(),
-  minPercent: z.number().gt(0).max(100).optional(),
+  // A rescue is planned in days and whole-percent water changes (a keeper measures a change by
+  // buckets or a marked tank, not to a tenth of a percent): at most 100 candidate sizes a day.
+  // A rescue covers the spike in front of the keeper: weeks, not a year [practice].
+  horizonDays: z.number().min(1, 'At least 1 day.').max(90, 'At most 90 days.').optional(),
+  maxPercent: z.number().min(1, 'At least 1 %.').max(100).optional(),
+  stepPercent: z.number().int('Use whole percent.').min(1, 'At least 1 %.').max(50).optional(),
+  minPercent: z.number().min(1, 'At least 1 %.').max(100).optional(),
   settings: adviceSettingsSchema.optional(),
 });
 
-export const kitSchema = z.object({ stepMgN: z.number().gt(0).max(5), relativeError: z.number().min(0).max(1) });
+// The finest kit step in use is a photometer's 0.01 mg/L [practice]; 0.001 leaves room.
+export const kitSchema = z.object({ stepMgN: z.number().min(0.001, 'At least 0.001 mg N/L.').max(5), relativeError: z.number().min(0).max(1) });
 
 export const calibrationRequestSchema = z.object({
   scenario: scenarioSchema,
@@ -74,14 +80,15 @@ export const calibrationRequestSchema = z.object({
     .max(2000),
   kits: z.object({ tan: kitSchema.optional(), no2: kitSchema.optional() }).optional(),
   fit: z.array(z.enum(['ao', 'no', 'growth'])).min(1).max(3).optional(),
-  forecastDays: z.number().int().min(1).max(365).optional(),
+  // A fit to a few weeks of tests says little about the tank more than three months on.
+  forecastDays: z.number().int().min(1).max(90).optional(),
   members: z.number().int().min(64).max(1024).optional(),
   seed: z.number().int().optional(),
 });
 
 export const capacityTestRequestSchema = z.object({
   scenario: scenarioSchema,
-  doseMgNPerL: z.number().gt(0).max(10),
+  doseMgNPerL: z.number().min(0.1, 'At least 0.1 mg N/L: less cannot be read on a test kit.').max(10),
   readings: z.array(z.object({ hour: z.number().min(0).max(72), tanMgN: z.number().min(0).max(100), no2MgN: z.number().min(0).max(100).optional() })).min(2).max(50),
   kit: kitSchema.optional(),
 });
