@@ -38,6 +38,14 @@ function getPool(): Piscina<EngineTask, EngineResult> {
   return pool;
 }
 
+/**
+ * Starts the pool now: its first worker loads the engine (seconds on a busy machine), which
+ * the first keeper to ask for advice after a boot would otherwise wait for.
+ */
+export function startEnginePool(): void {
+  getPool();
+}
+
 /** Runs one engine task on a worker thread. */
 export async function runOnEnginePool(task: EngineTask): Promise<EngineResult> {
   const result = await getPool().run(task);
