@@ -121,7 +121,7 @@ export function scaledScenario(scenario: Scenario, base: { start: readonly { zon
 const LOG_FACTOR_SPAN = Math.log(1e4);
 
 /** Largest log factor on a population before a zone holding it would start above its area ceiling (at least the prior's 0). */
-export function ceilingLogFactor(base: Base, key: 'ao' | 'no'): number {
+function ceilingLogFactor(base: Base, key: 'ao' | 'no'): number {
   let ratio = Infinity;
   for (const z of base.start) {
     const c = key === 'ao' ? z.aoCeiling : z.noCeiling;
