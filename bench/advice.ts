@@ -1,9 +1,13 @@
 /**
- * Advice benchmark (issue 4): medians over repeated runs, after one warm-up run each.
+ * Advice benchmark (issue 4, issue 16): medians over repeated runs, after one warm-up run each.
  * Targets: fastest safe schedule for adding 40 fish ≤ 150 ms; 64-member ensemble of a
- * 60-day forecast ≤ 100 ms; calibration on 30 readings ≤ 1 s.
- * Run: npm run bench:advice
+ * 60-day forecast ≤ 100 ms; calibration on 30 readings ≤ 1 s — in the engine, and through the
+ * API as the browser asks for it (POST /api/tanks/:id/calibration on the seeded demo tanks with
+ * their own test history, and after logging the high test of issue 14), each with its ratio to
+ * the synthetic calibration measured in the same run.
+ * Run: npm run bench:advice   (env: BENCH_ADVICE_DB_PORT=54372 BENCH_ADVICE_PORT=3172; BENCH_ADVICE_API=off skips the API part)
  */
+import { CSRF, DEMO_MEMBER, VIA_TLS_PROXY, freshDatabase, getJson, signIn, startCluster, startServer, stopCluster } from './harness.js';
 import { parseScenario } from '../shared/schemas/scenario';
 import { fastestSafeSchedule } from '../simulation/advice/addition-schedule';
 import { calibrate, scaledScenario } from '../simulation/advice/calibration';
@@ -21,7 +25,7 @@ function median(xs: number[]): number {
  * machine shared with other work the CPU figure is the steadier one (it leaves out time spent
  * waiting for a core).
  */
-function time(label: string, target: number, runs: number, fn: () => unknown): void {
+function time(label: string, target: number, runs: number, fn: () => unknown): number {
   fn(); // warm-up
   const ms: number[] = [];
   const cpu: number[] = [];
@@ -38,6 +42,7 @@ function time(label: string, target: number, runs: number, fn: () => unknown): v
   console.log(
     `${label.padEnd(52)} median ${m.toFixed(1).padStart(7)} ms wall, ${mc.toFixed(1).padStart(7)} ms CPU  (target ≤ ${target} ms, ${runs} runs) ${m <= target ? 'ok' : 'OVER'}`,
   );
+  return m;
 }
 
 // An invented 200 L tank with 10 platies; 40 more to add.
@@ -73,4 +78,88 @@ const readings = Array.from({ length: 30 }, (_, i) => {
   return { day: d, tanMgN: roundToKit(kit, truth.series.tanMgN[k]), no2MgN: roundToKit(kit, truth.series.no2MgN[k]) };
 });
 time('calibration, 30 readings, bands to 1 day past the log', 1000, 5, () => calibrate({ scenario: cycling, readings, members: 64, forecastDays: 1 }));
-time('calibration, 30 readings + prior and calibrated bands (30 d)', 1000, 5, () => calibrate({ scenario: cycling, readings }));
+const syntheticMs = time('calibration, 30 readings + prior and calibrated bands (30 d)', 1000, 5, () => calibrate({ scenario: cycling, readings }));
+const synthetic = calibrate({ scenario: cycling, readings }).quality;
+console.log(`${''.padEnd(52)} ${synthetic.forecasts} forecasts to fit, optimiser stopped by ${synthetic.stop} after ${synthetic.iterations} iterations`);
+
+// --- calibration through the API, as the browser asks for it ---------------------------------
+
+const API_RUNS = 3;
+
+interface FitAnswer {
+  quality: { forecasts: number; stop: string; iterations: number; verdict: string };
+  readingsUsed: number;
+}
+
+async function timedFit(base: string, cookie: string, tankId: string): Promise<{ ms: number; answer: FitAnswer }> {
+  const t0 = performance.now();
+  const res = await fetch(`${base}/api/tanks/${tankId}/calibration`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json', cookie, ...CSRF, ...VIA_TLS_PROXY },
+    body: '{}',
+  });
+  const ms = performance.now() - t0;
+  if (!res.ok) throw new Error(`calibration ${res.status}: ${await res.text()}`);
+  return { ms, answer: (await res.json()) as FitAnswer };
+}
+
+async function apiFit(base: string, cookie: string, label: string, tankId: string): Promise<void> {
+  const first = await timedFit(base, cookie, tankId); // also the warm-up
+  const ms: number[] = [];
+  let answer = first.answer;
+  for (let i = 0; i < API_RUNS; i++) {
+    const r = await timedFit(base, cookie, tankId);
+    ms.push(r.ms);
+    answer = r.answer;
+  }
+  const m = median(ms);
+  const q = answer.quality;
+  console.log(
+    `${label.padEnd(52)} median ${m.toFixed(0).padStart(7)} ms wall (first ${first.ms.toFixed(0)} ms; ${API_RUNS} runs), ` +
+      `${(m / syntheticMs).toFixed(2)}× the synthetic fit; ${answer.readingsUsed} tests, fit ${q.verdict}, ${q.forecasts} forecasts, stopped by ${q.stop} after ${q.iterations} iterations (target ≤ 1000 ms) ${m <= 1000 ? 'ok' : 'OVER'}`,
+  );
+}
+
+async function api(): Promise<void> {
+  const dbPort = Number(process.env.BENCH_ADVICE_DB_PORT ?? 54372);
+  const port = Number(process.env.BENCH_ADVICE_PORT ?? 3172);
+  const dbUrl = startCluster('pg-bench-advice', dbPort, 'shoalshift_bench_advice');
+  try {
+    freshDatabase(dbUrl);
+    const server = await startServer(port, dbUrl, { JOBS: 'off' });
+    try {
+      const cookie = await signIn(server.url, DEMO_MEMBER.email, DEMO_MEMBER.password);
+      const tanks = await getJson<{ id: string; name: string }[] | { tanks: { id: string; name: string }[] }>(server.url, '/api/tanks', cookie);
+      const list = Array.isArray(tanks) ? tanks : tanks.tanks;
+      console.log('\nthrough the API (demo member, seeded tanks, their own tests of the last eight weeks):');
+      for (const t of list) {
+        const detail = await getJson<{ readings: unknown[] }>(server.url, `/api/tanks/${t.id}`, cookie);
+        if (detail.readings.length < 2) continue;
+        await apiFit(server.url, cookie, `POST calibration, "${t.name}"`, t.id);
+      }
+      // Issue 14: a keeper logs total ammonia 2 and nitrite 1 mg N/L on the settled community tank.
+      const community = list.find((t) => t.name === 'Living-room community');
+      if (community) {
+        const res = await fetch(`${server.url}/api/tanks/${community.id}/readings`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json', cookie, ...CSRF, ...VIA_TLS_PROXY },
+          body: JSON.stringify({ takenAt: new Date().toISOString(), basis: 'N', tan: 2, no2: 1 }),
+        });
+        if (!res.ok) throw new Error(`reading ${res.status}: ${await res.text()}`);
+        await apiFit(server.url, cookie, `POST calibration, "${community.name}" + one high test`, community.id);
+      }
+    } finally {
+      server.child.kill('SIGTERM');
+      await server.exited;
+    }
+  } finally {
+    stopCluster('pg-bench-advice');
+  }
+}
+
+if (process.env.BENCH_ADVICE_API !== 'off') {
+  api().catch((err: unknown) => {
+    console.error(err);
+    process.exit(1);
+  });
+}

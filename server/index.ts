@@ -4,6 +4,7 @@ import { ConfigError, loadConfig } from './config.js';
 import { consoleLogger } from './logger.js';
 import { buildDeps } from './runtime.js';
 import { startJobs, type JobRunner } from './jobs/runner.js';
+import { startEnginePool } from './workers/engine-pool.js';
 
 /** Longest wait for in-flight requests at shutdown before giving up. */
 const SHUTDOWN_GRACE_MS = 15_000;
@@ -36,6 +37,7 @@ async function main(): Promise<void> {
   await new Promise<void>((resolve, reject) => server.once('listening', resolve).once('error', reject));
   const { port } = server.address() as AddressInfo;
   logger.log('info', 'boot.listening', { url: `http://${config.host}:${port}`, env: config.env, staticDir: config.staticDir });
+  startEnginePool();
 
   let stopping = false;
   const shutdown = (signal: string) => {

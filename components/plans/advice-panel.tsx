@@ -6,6 +6,7 @@ import { useAdditionAdvice, useCalibration, useCapacityTest, useRemovalAdvice, u
 import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
 import { parseDecimal } from '@/lib/units-format';
+import { fitWindowWords, fittingLabel } from '@/lib/calibration-progress';
 import { plainNumber } from '@/shared/forecast-view';
 import type { ScenarioEvent } from '@/shared/schemas/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
@@ -228,8 +229,13 @@ function CalibrationAdvice({ tank }: AdvicePanelProps) {
   const data = fit.data;
   return (
     <Section testID="advice-calibration">
-      <AppText>Fit the model to this tank's own ammonia and nitrite tests from the last eight weeks.</AppText>
-      <Button label="Fit to my tests" busy={fit.isPending} busyLabel="Fitting…" onPress={() => fit.mutate({})} testID="advice-calibration-run" />
+      <AppText>{`Fit the model to this tank's own ammonia and nitrite tests from ${fitWindowWords()}.`}</AppText>
+      <Button label="Fit to my tests" busy={fit.isPending} busyLabel={fittingLabel(tank.readings, new Date())} onPress={() => fit.mutate({})} testID="advice-calibration-run" />
+      {fit.isPending ? (
+        <AppText tone="textMuted" accessibilityLiveRegion="polite" testID="calibration-progress">
+          Trying filter strengths and growth speeds against your readings…
+        </AppText>
+      ) : null}
       {fit.isError ? <Banner tone="danger" title="Could not fit" message={errorText(fit.error)} testID="calibration-error" /> : null}
       {data ? (
         <View testID="advice-calibration-result" style={{ gap: space.sm }}>

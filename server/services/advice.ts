@@ -17,7 +17,7 @@ import {
   removalResponseSchema,
   rescueResponseSchema,
 } from '../../simulation/advice/schemas.js';
-import { capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
+import { CALIBRATION_DEFAULT_DAYS, capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import type { Tank } from '../entities/tank.js';
@@ -32,8 +32,6 @@ import { scenarioTankOf } from './plans.js';
  */
 
 const DAY_MS = 86_400_000;
-/** Readings the calibration uses by default: the last eight weeks (common practice: recent tests describe the present biofilter). */
-export const CALIBRATION_DEFAULT_DAYS = 56;
 /** Most readings one calibration uses (calibrationRequestSchema allows 2000; these are the newest). */
 export const CALIBRATION_MAX_READINGS = 500;
 

@@ -78,6 +78,15 @@ function getPool(): Piscina<unknown, EngineResult> {
 }
 
 /**
+ * Starts the pool now: its first worker loads the engine (seconds on a busy machine), which
+ * the first keeper to ask for advice after a boot would otherwise wait for. Call it after the
+ * limits are configured (they fix the workers' heap cap when the pool starts).
+ */
+export function startEnginePool(): void {
+  getPool();
+}
+
+/**
  * Runs one engine task on a worker thread within the limits; throws EngineStopped when it was
  * stopped (time, queue, memory, or `signal` aborted by the caller).
  */

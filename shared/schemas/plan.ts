@@ -130,6 +130,8 @@ export const ensembleBodySchema = z.object({
   seed: z.number().int().optional(),
   horizonDays: z.number().min(1, 'At least 1 day.').max(365).optional(),
 });
+/** Readings the calibration uses by default: the last eight weeks (common practice: recent tests describe the present biofilter). */
+export const CALIBRATION_DEFAULT_DAYS = 56;
 export const calibrationBodySchema = calibrationRequestSchema
   .omit({ scenario: true, readings: true })
   .extend({ sinceDays: z.number().int().min(1).max(365).optional() });

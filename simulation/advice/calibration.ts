@@ -4,9 +4,15 @@
  * Unknowns: a factor on the ammonia oxidisers' and on the nitrite oxidisers' capacity at the
  * start of the log (each zone keeps its share), and optionally a growth-speed multiplier on
  * both μmax — fitted in logarithms (they are positive and act multiplicatively) by
- * Levenberg–Marquardt (ml-levenberg-marquardt), started from the best point of a coarse grid. Residuals follow the colour-chart error model
- * of ./kit-error (rounding step/√12 plus a relative share; "0" censored). Each parameter
- * vector costs one forecast; the library's forward differences add one per parameter.
+ * Levenberg–Marquardt (./least-squares), started from the best point of a coarse grid.
+ * Residuals follow the colour-chart error model of ./kit-error (rounding step/√12 plus a
+ * relative share; "0" censored). Each parameter vector costs one forecast (remembered, so a
+ * vector is never forecast twice); `quality.forecasts` counts them.
+ *
+ * Bounds: a capacity factor goes no higher than the zones' area ceiling allows (model.ts: a
+ * biofilm above its ceiling cannot grow, only decay, so a start above it is no state a tank
+ * holds) and no lower than 1e-4 of the prior. The ceiling also keeps the forecasts cheap:
+ * capacities far above it made the equations stiff, and one forecast then took ~0.5 s.
  *
  * Quality: RMSE in kit steps, and the reduced χ² of the scaled residuals; the fit is "poor"
  * when the reduced χ² exceeds 4 — readings sit on average more than twice the kit's expected
@@ -17,8 +23,6 @@
  * hypercube through the normal quantile, with the other model values at their defaults — the
  * fit was made at those values, so letting them vary independently would ignore that.
  */
-import { levenbergMarquardt } from 'ml-levenberg-marquardt';
-import { inv } from 'mathjs';
 import type { Scenario } from '../../shared/schemas/scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
@@ -27,6 +31,7 @@ import { ESTIMATE_CAUTIONS } from './cautions';
 import { bandOf, runEnsemble, DEFAULT_SEED, MIN_BAND_MEMBERS, type EnsembleBand } from './ensemble';
 import { DEFAULT_KIT, scaledResidual, type KitSpec } from './kit-error';
 import { latinHypercube } from './latin-hypercube';
+import { invertSpd, leastSquares, type LeastSquaresStop } from './least-squares';
 import { normalQuantile } from './normal-quantile';
 import { seededRandom } from './random';
 import { withStart } from './scenario-edit';
@@ -67,7 +72,17 @@ export interface CalibrationResult {
   };
   /** log-parameter standard errors, in the order of `fit` */
   standardErrors: Record<FitKey, number | null>;
-  quality: { rmseKitSteps: number; reducedChiSquare: number; readings: number; verdict: 'good' | 'fair' | 'poor'; iterations: number };
+  quality: {
+    rmseKitSteps: number;
+    reducedChiSquare: number;
+    readings: number;
+    verdict: 'good' | 'fair' | 'poor';
+    iterations: number;
+    /** why the optimiser stopped ('iterations' = it ran out of its budget) */
+    stop: LeastSquaresStop;
+    /** forecasts run to fit (grid, optimiser, covariance, the best fit), not counting the bands */
+    forecasts: number;
+  };
   /** scenario with the fitted start (explicit capacities) and growth, ready to forecast */
   calibratedScenario: Scenario;
   calibratedParameters: ParameterOverrides;
@@ -77,27 +92,42 @@ export interface CalibrationResult {
 }
 
 interface Base {
-  start: { zoneId: string; ao: number; no: number }[];
+  start: { zoneId: string; ao: number; no: number; aoCeiling: number; noCeiling: number }[];
   water: { tanMgN: number; no2MgN: number; no3MgN: number; orgMgN: number };
 }
 
 /** Day-0 capacities and water of the scenario as described (the prior), before any day-0 event. */
 function baseState(scenario: Scenario): Base {
-  const r = createForecastSession({ ...scenario, events: [] }, { horizonDays: 0.01 }).reading();
+  const session = createForecastSession({ ...scenario, events: [] }, { horizonDays: 0.01 });
+  const r = session.reading();
+  const ceilings = session.finish().summary.final.zones;
   return {
-    start: r.zones.map((z) => ({ zoneId: z.zoneId, ao: z.aoMgNPerDay, no: z.noMgNPerDay })),
+    start: r.zones.map((z, i) => ({ zoneId: z.zoneId, ao: z.aoMgNPerDay, no: z.noMgNPerDay, aoCeiling: ceilings[i].aoCeilingMgNPerDay, noCeiling: ceilings[i].noCeilingMgNPerDay })),
     water: { tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN, orgMgN: r.orgMgN },
   };
 }
 
 /** The scenario with capacities scaled and the day-0 water fixed to the prior's. */
-export function scaledScenario(scenario: Scenario, base: Base, aoFactor: number, noFactor: number): Scenario {
+export function scaledScenario(scenario: Scenario, base: { start: readonly { zoneId: string; ao: number; no: number }[]; water: Base['water'] }, aoFactor: number, noFactor: number): Scenario {
   // A zone without nitrifiers in the prior gets a trace so a factor can act on it.
   const s = withStart(scenario, {
     kind: 'explicit',
     capacities: base.start.map((z) => ({ zoneId: z.zoneId, aoMgNPerDay: z.ao * aoFactor, noMgNPerDay: z.no * noFactor })),
   });
   return { ...s, initialWater: { ...base.water, ...scenario.initialWater } };
+}
+
+/** Widest log-factor range searched (the prior ×1e-4 … ×1e4). */
+const LOG_FACTOR_SPAN = Math.log(1e4);
+
+/** Largest log factor on a population before a zone holding it would start above its area ceiling (at least the prior's 0). */
+function ceilingLogFactor(base: Base, key: 'ao' | 'no'): number {
+  let ratio = Infinity;
+  for (const z of base.start) {
+    const c = key === 'ao' ? z.aoCeiling : z.noCeiling;
+    if (z[key] > 0 && c > 0) ratio = Math.min(ratio, c / z[key]);
+  }
+  return Math.max(0, Math.min(LOG_FACTOR_SPAN, Math.log(ratio)));
 }
 
 function growthParameters(g: number): ParameterOverrides {
@@ -152,56 +182,58 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
   const residuals = (f: Forecast) =>
     obs.map((o) => scaledResidual(o.kit, o.value, at(f.series.days, o.species === 'tan' ? f.series.tanMgN : f.series.no2MgN, o.day)));
 
-  let calls = 0;
-  const model = (theta: number[]) => {
-    calls++;
-    let r: number[];
-    try {
-      r = residuals(run(theta));
-    } catch {
-      r = obs.map(() => 1e3); // a parameter set the engine refuses counts as a very bad fit
+  let forecasts = 0;
+  const remembered = new Map<string, number[]>();
+  // Scaled residuals of one parameter vector; a vector the engine refuses counts as a very bad fit.
+  const residualsAt = (theta: readonly number[]): number[] => {
+    const key = theta.join(',');
+    let r = remembered.get(key);
+    if (!r) {
+      forecasts++;
+      try {
+        r = residuals(run([...theta]));
+      } catch {
+        r = obs.map(() => 1e3);
+      }
+      remembered.set(key, r);
     }
-    return (i: number) => -r[i];
+    return r;
   };
-  const x = obs.map((_, i) => i);
-  const y = obs.map(() => 0);
-  const bounds = { ao: [Math.log(1e-4), Math.log(1e4)], no: [Math.log(1e-4), Math.log(1e4)], growth: [Math.log(0.2), Math.log(3)] };
-  // Start LM from the best point of a coarse grid: a cycling tank's readings depend on the
-  // timing of exponential growth, and a start far off leaves LM in a local minimum.
+  const bounds: Record<FitKey, [number, number]> = {
+    ao: [-LOG_FACTOR_SPAN, ceilingLogFactor(base, 'ao')],
+    no: [-LOG_FACTOR_SPAN, ceilingLogFactor(base, 'no')],
+    growth: [Math.log(0.2), Math.log(3)],
+  };
+  const lower = fit.map((k) => bounds[k][0]);
+  const upper = fit.map((k) => bounds[k][1]);
+  // Start from the best point of a coarse grid (within the bounds): a cycling tank's readings
+  // depend on the timing of exponential growth, and a start far off leaves LM in a local minimum.
   const gridValues: Record<FitKey, number[]> = {
     ao: [-3, -1.5, 0, 1.5, 3],
     no: [-3, -1.5, 0, 1.5, 3],
     growth: [Math.log(0.6), 0, Math.log(1.5)],
   };
+  const gridOf = (k: FitKey) => [...new Set(gridValues[k].map((g) => Math.min(Math.max(g, bounds[k][0]), bounds[k][1])))];
   let start = fit.map(() => 0);
   let startSsr = Infinity;
   const visit = (prefix: number[]) => {
     if (prefix.length === fit.length) {
-      const f = model(prefix);
-      const ssr = obs.reduce((s, _, i) => s + f(i) ** 2, 0);
+      const ssr = residualsAt(prefix).reduce((s, x) => s + x * x, 0);
       if (ssr < startSsr) {
         startSsr = ssr;
         start = prefix;
       }
       return;
     }
-    for (const g of gridValues[fit[prefix.length]]) visit([...prefix, g]);
+    for (const g of gridOf(fit[prefix.length])) visit([...prefix, g]);
   };
   visit([]);
-  const lm = levenbergMarquardt({ x, y }, model, {
-    initialValues: start,
-    minValues: fit.map((k) => bounds[k][0]),
-    maxValues: fit.map((k) => bounds[k][1]),
-    gradientDifference: 1e-3,
-    damping: 1e-2,
-    maxIterations: 60,
-    errorTolerance: 1e-8,
-    improvementThreshold: 1e-4,
-  });
-  const theta = lm.parameterValues;
+  const lm = leastSquares(residualsAt, start, { lower, upper, difference: 1e-3, maxIterations: 60 });
+  const theta = lm.x;
   const v = unpack(theta);
+  forecasts++;
   const best = run(theta);
-  const r = residuals(best);
+  const r = lm.residuals;
   const ssr = r.reduce((s, x) => s + x * x, 0);
   const dof = Math.max(1, obs.length - fit.length);
   const reducedChiSquare = ssr / dof;
@@ -221,18 +253,14 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
     const dn = theta.slice();
     up[j] += h;
     dn[j] -= h;
-    const ru = residuals(run(up));
-    const rd = residuals(run(dn));
+    const ru = residualsAt(up);
+    const rd = residualsAt(dn);
     for (let i = 0; i < obs.length; i++) J[i][j] = (ru[i] - rd[i]) / (2 * h);
   });
   const JtJ = fit.map((_, a) => fit.map((_, b) => J.reduce((s, row) => s + row[a] * row[b], 0) + (a === b ? 1e-9 : 0)));
   const s2 = Math.max(1, reducedChiSquare);
-  let cov: number[][];
-  try {
-    cov = (inv(JtJ) as number[][]).map((row) => row.map((c) => c * s2));
-  } catch {
-    cov = fit.map((_, a) => fit.map((_, b) => (a === b ? 1 : 0)));
-  }
+  let cov = invertSpd(JtJ).map((row) => row.map((c) => c * s2));
+  if (!cov.every((row) => row.every(Number.isFinite))) cov = fit.map((_, a) => fit.map((_, b) => (a === b ? 1 : 0)));
   const standardErrors: Record<FitKey, number | null> = { ao: null, no: null, growth: null };
   fit.forEach((k, i) => (standardErrors[k] = Math.sqrt(Math.max(0, cov[i][i]))));
 
@@ -247,7 +275,9 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
   const calibratedForecasts: Forecast[] = [];
   for (const u of rows) {
     const z = u.map((p) => normalQuantile(Math.min(Math.max(p, 1e-9), 1 - 1e-9)));
-    const t = theta.map((t0, i) => t0 + L[i].reduce((s, lij, j) => s + lij * z[j], 0));
+    // Held within the fit's bounds: a direction the readings barely constrain has a huge
+    // standard error, and unbounded draws gave capacities the engine refuses or cannot afford.
+    const t = theta.map((t0, i) => Math.min(Math.max(t0 + L[i].reduce((s, lij, j) => s + lij * z[j], 0), lower[i]), upper[i]));
     const w = unpack(t);
     try {
       calibratedForecasts.push(forecastParsed(scaledScenario(scenario, base, w.ao, w.no), { ...bandOpts, parameters: growthParameters(Math.max(w.growth, 0.05)) }));
@@ -270,7 +300,7 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
         : verdict === 'fair'
           ? 'That is a fair fit for colour-chart kits.'
           : 'That is as close as colour-chart kits allow.'),
-    `With the fit, the band narrows from an average width of ${formatValue(width(prior.tanMgN))} to ${formatValue(width(calibrated.tanMgN))} mg N/L for total ammonia and from ${formatValue(width(prior.no2MgN))} to ${formatValue(width(calibrated.no2MgN))} mg N/L for nitrite.`,
+    describeBandChange({ prior: width(prior.tanMgN), calibrated: width(calibrated.tanMgN) }, { prior: width(prior.no2MgN), calibrated: width(calibrated.no2MgN) }),
   ];
   return {
     fitted: { aoFactor: v.ao, noFactor: v.no, growthMultiplier: v.growth },
@@ -282,7 +312,7 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
       presentAoMgNH3PerDay: (presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N,
     },
     standardErrors,
-    quality: { rmseKitSteps, reducedChiSquare, readings: obs.length, verdict, iterations: lm.iterations },
+    quality: { rmseKitSteps, reducedChiSquare, readings: obs.length, verdict, iterations: lm.iterations, stop: lm.stop, forecasts },
     calibratedScenario,
     calibratedParameters: growthParameters(v.growth),
     band: {
@@ -294,6 +324,39 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
     explanation,
     cautions: [...ESTIMATE_CAUTIONS],
   };
+}
+
+/** Within this share either way a band "stays about as wide" (widths are means over a 64-member ensemble). */
+export const BAND_SAME_SHARE = 0.05;
+
+export type BandChange = 'narrows' | 'widens' | 'same';
+
+/** Which way a band's mean width moved from the prior to the calibrated ensemble. */
+export function bandChange(w: { prior: number; calibrated: number }): BandChange {
+  if (w.calibrated < w.prior * (1 - BAND_SAME_SHARE)) return 'narrows';
+  if (w.calibrated > w.prior * (1 + BAND_SAME_SHARE)) return 'widens';
+  return 'same';
+}
+
+function bandChangeWords(what: string, w: { prior: number; calibrated: number }): string {
+  const from = `${formatValue(w.prior)} to ${formatValue(w.calibrated)} mg N/L`;
+  switch (bandChange(w)) {
+    case 'narrows':
+      return `the band for ${what} narrows by ${Math.round((1 - w.calibrated / w.prior) * 100)} % (average width from ${from})`;
+    case 'widens':
+      return `the band for ${what} widens (average width from ${from})`;
+    case 'same':
+      return `the band for ${what} stays about as wide (average width ${formatValue(w.prior)} mg N/L)`;
+  }
+}
+
+/** The keeper-facing sentence on how the fit changed the forecast band (the one source of this wording). */
+export function describeBandChange(tan: { prior: number; calibrated: number }, no2: { prior: number; calibrated: number }): string {
+  const widened = bandChange(tan) === 'widens' || bandChange(no2) === 'widens';
+  return (
+    `With the fit, ${bandChangeWords('total ammonia', tan)} and ${bandChangeWords('nitrite', no2)}.` +
+    (widened ? ' A wider band means your readings leave the model less sure than its defaults did, not more.' : '')
+  );
 }
 
 /** Lower Cholesky factor of a symmetric positive semi-definite matrix (zero pivots left at 0). */

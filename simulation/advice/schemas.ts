@@ -208,6 +208,8 @@ export const calibrationResponseSchema = z.object({
     readings: z.number().int(),
     verdict: z.enum(['good', 'fair', 'poor']),
     iterations: z.number().int(),
+    stop: z.enum(['gradient', 'step', 'gain', 'iterations']),
+    forecasts: z.number().int(),
   }),
   calibratedScenario: scenarioSchema,
   calibratedParameters: z.record(z.string(), z.number()),

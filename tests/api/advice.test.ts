@@ -182,6 +182,23 @@ describe('POST /api/tanks/:tankId/calibration', () => {
     expect(body.cautions.length).toBeGreaterThan(0);
   });
 
+  it('fits a settled log with one high test (issue 14) by converging, with a bounded number of forecasts, and says which way the band moved', async () => {
+    const ds = ctx.deps.dataSource;
+    const { user, c } = await keeper();
+    const tank = await settledTank(user.id);
+    const now = Date.now();
+    for (let d = 21; d >= 3; d -= 3) await createReading(ds, tank.id, { takenAt: new Date(now - d * 86_400_000), tanMgN: 0.05, no2MgN: 0.02 });
+    await createReading(ds, tank.id, { takenAt: new Date(now - 3_600_000), tanMgN: 2, no2MgN: 1 });
+    const body = calibrationResponseSchema.parse((await c.post(`/api/tanks/${tank.id}/calibration`, {}).expect(200)).body);
+    // Before the fix every fit ran 383 forecasts (the optimiser never stopped early).
+    expect(body.quality.stop).not.toBe('iterations');
+    expect(body.quality.forecasts).toBeLessThan(150);
+    const line = body.explanation.find((l) => l.startsWith('With the fit'))!;
+    const tan = body.band.meanWidthTan;
+    if (tan.calibrated > tan.prior * 1.05) expect(line).toMatch(/total ammonia widens/);
+    if (tan.calibrated < tan.prior * 0.95) expect(line).toMatch(/total ammonia narrows by \d+ %/);
+  });
+
   it('answers 400 naming readings when the tank has fewer than two tests', async () => {
     const { user, c } = await keeper();
     const tank = await settledTank(user.id);
