@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { forgotPasswordSchema, resetPasswordSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth.js';
 import type { AppDeps } from '../deps.js';
-import { AppError, invalidCredentials } from '../errors.js';
-import { clientAddress } from '../middleware/client-address.js';
+import { invalidCredentials, tooManyRequests } from '../errors.js';
+import { clientAddress, clientIp } from '../middleware/client-address.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { presentMe } from '../presenters/me.js';
 import { authenticate, listMemberships, signUp } from '../services/accounts.js';
 import { enforceAttemptLimit } from '../services/attempt-limiter.js';
 import { resetPassword, sendPasswordReset } from '../services/password-reset.js';
-import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from '../services/sign-in-limiter.js';
+import { clearSignInFailures, takeSignInAttempt } from '../services/sign-in-limiter.js';
 import { SESSION_COOKIE_NAME, destroySession, startUserSession } from '../session.js';
 
 export function authRouter({ dataSource: ds, config, mailer, logger, background }: AppDeps): Router {
@@ -29,17 +29,18 @@ export function authRouter({ dataSource: ds, config, mailer, logger, background 
   router.post('/sign-in', validateBody(signInSchema), async (req, res) => {
     const { email, password } = validBody(req, signInSchema);
     const address = clientAddress(req);
-    await assertSignInAllowed(ds, email, address).catch((err: unknown) => {
-      if (err instanceof AppError && err.status === 429) logger.log('warn', 'auth.sign_in_limited', { email, address });
-      throw err;
-    });
+    // Counted and recorded as a failure before bcrypt (server/services/sign-in-limiter.ts).
+    const refusal = await takeSignInAttempt(ds, email, address);
+    if (refusal) {
+      logger.log('warn', 'auth.sign_in_limited', { email, address, ip: clientIp(req), by: refusal.by, retryAfter: refusal.retryAfter });
+      throw tooManyRequests(refusal.retryAfter, refusal.message);
+    }
     const user = await authenticate(ds, email, password);
     if (!user) {
-      await recordSignInFailure(ds, email, address);
-      logger.log('warn', 'auth.sign_in_failed', { email, address });
+      logger.log('warn', 'auth.sign_in_failed', { email, address, ip: clientIp(req) });
       throw invalidCredentials();
     }
-    await clearSignInFailures(ds, email);
+    await clearSignInFailures(ds, email, address);
     await startUserSession(req, user.id);
     logger.log('info', 'auth.sign_in', { userId: user.id, address });
     res.json(presentMe(user, await listMemberships(ds, user.id)));

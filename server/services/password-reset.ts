@@ -9,6 +9,7 @@ import { passwordResetMail } from '../mail/templates/password-reset.js';
 import { assertPasswordNotCommon } from './accounts.js';
 import { hashPassword } from './passwords.js';
 import { endAllSessionsOf } from './sessions.js';
+import { clearAccountSignInFailures } from './sign-in-limiter.js';
 import { returnedRows } from '../data-source.js';
 
 export const RESET_TOKEN_VALID_MINUTES = 60;
@@ -69,5 +70,7 @@ export async function resetPassword(ds: DataSource, token: string, password: str
     await tx.getRepository(User).update({ id: userId }, { passwordHash, passwordChangedAt: new Date() });
     await tx.getRepository(PasswordResetToken).update({ userId, usedAt: IsNull() }, { usedAt: new Date() });
     await endAllSessionsOf(tx, userId);
+    // The new password is signed in with at once, from anywhere (the 429 sign-in message says so).
+    await clearAccountSignInFailures(tx, user.email);
   });
 }

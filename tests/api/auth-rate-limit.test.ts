@@ -148,6 +148,14 @@ describe('attempt limits on the expensive anonymous auth routes (common practice
     expect(limitedLogs(['danio@example.org'])[0].fields).toMatchObject({ action: 'forgot-password', by: 'address', address: here });
   });
 
+  it('an IPv6 client is counted by its /64: a new address inside it is the same subject; the next /64 is not', async () => {
+    const { max } = ATTEMPT_LIMITS['forgot-password'].address;
+    for (let i = 0; i < max; i++) await from(`2001:db8:7:7::${(i + 1).toString(16)}`).post('/api/auth/forgot-password', { email: `roamer${i}@example.org` }).expect(202);
+    await from('2001:db8:7:7:abcd:ef01:2345:6789').post('/api/auth/forgot-password', { email: 'roamer-late@example.org' }).expect(429);
+    await from('2001:db8:7:8::1').post('/api/auth/forgot-password', { email: 'roamer-late@example.org' }).expect(202);
+    expect(limitedLogs(['roamer-late@example.org'])[0].fields).toMatchObject({ by: 'address', address: '2001:db8:7:7::/64' });
+  });
+
   it('concurrent requests cannot slip past the limit together (the check and the count are one locked step)', async () => {
     const { max } = ATTEMPT_LIMITS['forgot-password'].email;
     const statuses = await Promise.all(
