@@ -79,8 +79,9 @@ const HOUR = 60 * MINUTE;
  * Attempts refused by a limit are not counted, so the window always ends.
  */
 export const ATTEMPT_LIMITS = {
-  // A new account costs a bcrypt hash; ten from one address in an hour covers a family or a club table.
-  'sign-up': { address: { max: 10, windowSeconds: HOUR } },
+  // A new account costs a bcrypt hash and an e-mail; ten from one address in an hour covers a family or a
+  // club table, and three per target e-mail (a retyped form, a lost link) cannot flood a mailbox.
+  'sign-up': { address: { max: 10, windowSeconds: HOUR }, email: { max: 3, windowSeconds: HOUR } },
   // Reset tokens are 32 random bytes (no guessing); the limit bounds the bcrypt hash done before the token is checked.
   'reset-password': { address: { max: 10, windowSeconds: 15 * MINUTE } },
   // Each request may send an e-mail: per target e-mail so one mailbox cannot be flooded, per address for spraying.

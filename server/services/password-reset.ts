@@ -20,12 +20,10 @@ export const INVALID_TOKEN_MESSAGE = 'This reset link is not valid or has expire
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
 /**
- * Sends a single-use reset link when an account has the e-mail; does nothing otherwise. The
- * caller answers the same way in both cases. Only the token's SHA-256 is stored.
+ * Issues a single-use reset link for the user (only the token's SHA-256 is stored; earlier
+ * unused links are retired), or null when the account already had MAX_RESET_MAILS_PER_HOUR.
  */
-export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: string, email: string): Promise<void> {
-  const user = await ds.getRepository(User).findOneBy({ email });
-  if (!user) return;
+export async function issueResetLink(ds: DataSource, appUrl: string, user: User): Promise<string | null> {
   const token = randomBytes(32).toString('base64url');
   const issued = await ds.transaction(async (tx) => {
     // Lock the user's row so concurrent requests count and insert one after another.
@@ -43,8 +41,18 @@ export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: 
     });
     return true;
   });
-  if (!issued) return;
-  const link = `${appUrl}/reset-password?token=${encodeURIComponent(token)}`;
+  return issued ? `${appUrl}/reset-password?token=${encodeURIComponent(token)}` : null;
+}
+
+/**
+ * Sends a single-use reset link when an account has the e-mail; does nothing otherwise. The
+ * caller answers the same way in both cases.
+ */
+export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: string, email: string): Promise<void> {
+  const user = await ds.getRepository(User).findOneBy({ email });
+  if (!user) return;
+  const link = await issueResetLink(ds, appUrl, user);
+  if (!link) return;
   await mailer.send(user.email, passwordResetMail({ displayName: user.displayName, link, validMinutes: RESET_TOKEN_VALID_MINUTES }));
 }
 

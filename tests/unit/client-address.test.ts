@@ -3,8 +3,8 @@ import { loadConfig } from '../../server/config.js';
 import { addressBucket } from '../../server/middleware/client-address.js';
 import { describeTrustProxy } from '../../server/security/trust-proxy.js';
 
-const production = { NODE_ENV: 'production', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40) };
-const development = { DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db' };
+const production = { NODE_ENV: 'production' as const, DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40) };
+const development = { NODE_ENV: 'development' as const, DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db' };
 
 describe('the address every limit counts', () => {
   it('is an IPv4 address as is, and an IPv6 address as its /64 network', () => {
