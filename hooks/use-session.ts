@@ -3,6 +3,8 @@ import { ApiRequestError, apiRequest } from '@/lib/api-client';
 import { sessionKeys } from '@/lib/query-keys';
 import {
   meSchema,
+  signUpSentSchema,
+  type ConfirmSignUpInput,
   type ForgotPasswordInput,
   type Me,
   type ResetPasswordInput,
@@ -45,10 +47,18 @@ export function useSignIn() {
   });
 }
 
+/** Asks for the e-mailed link that finishes a sign-up; nobody is signed in yet. */
 export function useSignUp() {
+  return useMutation({
+    mutationFn: (input: SignUpInput) => apiRequest('/api/auth/sign-up', { method: 'POST', body: input, schema: signUpSentSchema }),
+  });
+}
+
+/** Opens the e-mailed link: makes the account and signs it in. */
+export function useConfirmSignUp() {
   const startSession = useStartSession();
   return useMutation({
-    mutationFn: (input: SignUpInput) => apiRequest('/api/auth/sign-up', { method: 'POST', body: input, schema: meSchema }),
+    mutationFn: (input: ConfirmSignUpInput) => apiRequest('/api/auth/confirm-sign-up', { method: 'POST', body: input, schema: meSchema }),
     onSuccess: startSession,
   });
 }

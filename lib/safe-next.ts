@@ -1,5 +1,5 @@
 /** Paths a person is never sent back to after signing in (they would loop or make no sense). */
-const AUTH_PATHS = ['/sign-in', '/sign-up', '/forgot-password', '/reset-password'];
+const AUTH_PATHS = ['/sign-in', '/sign-up', '/confirm-sign-up', '/forgot-password', '/reset-password'];
 
 /**
  * The in-app path to return to after sign-in, from an untrusted `?next=` value. Only same-site

@@ -1,6 +1,7 @@
 import path from 'node:path';
 import { z } from 'zod';
 import { hkdfSync, randomBytes } from 'node:crypto';
+import { trustProxyProblem } from './security/trust-proxy.js';
 
 /**
  * Server configuration, read from the environment once at boot and validated here, so a bad
@@ -26,8 +27,8 @@ const envSchema = z
     MAIL_FROM: z.string().min(3).default('Shoalshift <no-reply@shoalshift.invalid>'),
     MAIL_FAKE_URL: z.url().optional(),
     STATIC_DIR: z.string().min(1).default('dist'),
-    /** Express "trust proxy": which hops may set X-Forwarded-For/-Proto. */
-    TRUST_PROXY: z.string().min(1).default('loopback'),
+    /** Express "trust proxy": which hops may set X-Forwarded-For/-Proto (server/security/trust-proxy.ts). */
+    TRUST_PROXY: z.string().trim().min(1).default('loopback'),
     /** Background jobs (reminders, alerts) in this process: on, or off (tests that do not need them). */
     JOBS: z.enum(['on', 'off']).default('on'),
     /**
@@ -52,6 +53,8 @@ const envSchema = z
   .superRefine((env, ctx) => {
     if (env.SESSION_ABSOLUTE_SECONDS < env.SESSION_IDLE_SECONDS)
       ctx.addIssue({ code: 'custom', path: ['SESSION_ABSOLUTE_SECONDS'], message: 'must not be shorter than SESSION_IDLE_SECONDS' });
+    const trustProxy = trustProxyProblem(env.TRUST_PROXY, env.NODE_ENV);
+    if (trustProxy) ctx.addIssue({ code: 'custom', path: ['TRUST_PROXY'], message: trustProxy });
     if (env.NODE_ENV !== 'production') return;
     if (!env.SESSION_SECRET) ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'is required in production' });
     if (!env.APP_URL) ctx.addIssue({ code: 'custom', path: ['APP_URL'], message: 'is required in production' });

@@ -3,6 +3,7 @@ import { createApp } from './app.js';
 import { ConfigError, loadConfig } from './config.js';
 import { consoleLogger } from './logger.js';
 import { buildDeps } from './runtime.js';
+import { describeTrustProxy } from './security/trust-proxy.js';
 import { startJobs, type JobRunner } from './jobs/runner.js';
 import { startEnginePool } from './workers/engine-pool.js';
 
@@ -15,6 +16,9 @@ async function main(): Promise<void> {
   if (config.session.secretIsEphemeral) {
     logger.log('warn', 'config.ephemeral_session_secret', { note: 'SESSION_SECRET not set: sessions end when the server restarts' });
   }
+  // Whose X-Forwarded-For decides the address every limit counts.
+  logger.log('info', 'boot.trust_proxy', { trustProxy: config.trustProxy, meaning: describeTrustProxy(config.trustProxy) });
+  if (config.trustProxy === true) logger.log('warn', 'config.trust_proxy_any', { note: 'TRUST_PROXY=true: any client can choose its address (refused in production)' });
   const deps = buildDeps(config, logger);
   await deps.dataSource.initialize();
   if (await deps.dataSource.showMigrations()) {

@@ -14,7 +14,10 @@ import { TextLink } from '@/components/ui/text-link';
 
 const FIELDS = ['displayName', 'email', 'password'] as const;
 
-/** Name, e-mail, password. A taken e-mail shows under the e-mail field; the person stays signed in after. */
+/**
+ * Name, e-mail, password. The answer is the same whether or not the address has an account (the
+ * e-mail tells its owner which), so the screen then asks the person to open the e-mailed link.
+ */
 export function SignUpScreen() {
   const { next } = useGlobalSearchParams<{ next?: string }>();
   const nextPath = safeNextPath(next);
@@ -31,6 +34,20 @@ export function SignUpScreen() {
     setErrors(NO_FORM_ERRORS);
     signUp.mutate(checked.data, { onError: (e) => setErrors(formErrorsFromRequest(e, FIELDS)) });
   };
+
+  if (signUp.isSuccess) {
+    return (
+      <AuthFrame testID="screen-sign-up" title="Check your inbox" footer={<TextLink href={signInHref} label="Back to sign in" testID="sign-up-to-sign-in" />}>
+        <Banner
+          tone="ok"
+          title={`We wrote to ${signUp.variables?.email ?? 'you'}`}
+          message={signUp.data.message}
+          testID="sign-up-sent"
+        />
+        <Button testID="sign-up-again" label="Use another address" variant="secondary" onPress={() => signUp.reset()} fullWidth />
+      </AuthFrame>
+    );
+  }
 
   return (
     <AuthFrame
@@ -80,7 +97,7 @@ export function SignUpScreen() {
         returnKeyType="go"
         onSubmitEditing={submit}
       />
-      <Button testID="sign-up-submit" label="Create account" busy={signUp.isPending} busyLabel="Creating account…" onPress={submit} fullWidth />
+      <Button testID="sign-up-submit" label="Create account" busy={signUp.isPending} busyLabel="Sending…" onPress={submit} fullWidth />
     </AuthFrame>
   );
 }

@@ -1,14 +1,15 @@
 import { Router } from 'express';
-import { forgotPasswordSchema, resetPasswordSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth.js';
+import { confirmSignUpSchema, forgotPasswordSchema, resetPasswordSchema, signInSchema, signUpSchema } from '../../shared/schemas/auth.js';
 import type { AppDeps } from '../deps.js';
-import { AppError, invalidCredentials } from '../errors.js';
-import { clientAddress } from '../middleware/client-address.js';
+import { invalidCredentials, tooManyRequests } from '../errors.js';
+import { clientAddress, clientIp } from '../middleware/client-address.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { presentMe } from '../presenters/me.js';
-import { authenticate, listMemberships, signUp } from '../services/accounts.js';
+import { assertPasswordNotCommon, authenticate, listMemberships } from '../services/accounts.js';
 import { enforceAttemptLimit } from '../services/attempt-limiter.js';
 import { resetPassword, sendPasswordReset } from '../services/password-reset.js';
-import { assertSignInAllowed, clearSignInFailures, recordSignInFailure } from '../services/sign-in-limiter.js';
+import { clearSignInFailures, takeSignInAttempt } from '../services/sign-in-limiter.js';
+import { SIGN_UP_SENT_MESSAGE, confirmSignUp, requestSignUp } from '../services/sign-up.js';
 import { SESSION_COOKIE_NAME, destroySession, startUserSession } from '../session.js';
 
 export function authRouter({ dataSource: ds, config, mailer, logger, background }: AppDeps): Router {
@@ -19,8 +20,19 @@ export function authRouter({ dataSource: ds, config, mailer, logger, background 
   // bcrypt hash or e-mail (server/services/attempt-limiter.ts).
   router.post('/sign-up', validateBody(signUpSchema), async (req, res) => {
     const input = validBody(req, signUpSchema);
-    await enforceAttemptLimit(limits, 'sign-up', { address: clientAddress(req) });
-    const user = await signUp(ds, input);
+    // Per target e-mail too, so the form cannot flood one mailbox; counted whether or not an
+    // account has it, so a 429 says nothing either.
+    await enforceAttemptLimit(limits, 'sign-up', { address: clientAddress(req), email: input.email });
+    assertPasswordNotCommon(input.password, input.email);
+    // The same answer, at the same speed, whether or not the address has an account: the link
+    // or the "you already have one" e-mail is made after the answer (server/services/sign-up.ts).
+    background.run('sign-up-mail', () => requestSignUp(ds, mailer, config.appUrl, input));
+    res.status(202).json({ message: SIGN_UP_SENT_MESSAGE });
+  });
+
+  router.post('/confirm-sign-up', validateBody(confirmSignUpSchema), async (req, res) => {
+    const { token } = validBody(req, confirmSignUpSchema);
+    const user = await confirmSignUp(ds, token);
     await startUserSession(req, user.id);
     logger.log('info', 'auth.sign_up', { userId: user.id });
     res.status(201).json(presentMe(user, []));
@@ -29,17 +41,18 @@ export function authRouter({ dataSource: ds, config, mailer, logger, background 
   router.post('/sign-in', validateBody(signInSchema), async (req, res) => {
     const { email, password } = validBody(req, signInSchema);
     const address = clientAddress(req);
-    await assertSignInAllowed(ds, email, address).catch((err: unknown) => {
-      if (err instanceof AppError && err.status === 429) logger.log('warn', 'auth.sign_in_limited', { email, address });
-      throw err;
-    });
+    // Counted and recorded as a failure before bcrypt (server/services/sign-in-limiter.ts).
+    const refusal = await takeSignInAttempt(ds, email, address);
+    if (refusal) {
+      logger.log('warn', 'auth.sign_in_limited', { email, address, ip: clientIp(req), by: refusal.by, retryAfter: refusal.retryAfter });
+      throw tooManyRequests(refusal.retryAfter, refusal.message);
+    }
     const user = await authenticate(ds, email, password);
     if (!user) {
-      await recordSignInFailure(ds, email, address);
-      logger.log('warn', 'auth.sign_in_failed', { email, address });
+      logger.log('warn', 'auth.sign_in_failed', { email, address, ip: clientIp(req) });
       throw invalidCredentials();
     }
-    await clearSignInFailures(ds, email);
+    await clearSignInFailures(ds, email, address);
     await startUserSession(req, user.id);
     logger.log('info', 'auth.sign_in', { userId: user.id, address });
     res.json(presentMe(user, await listMemberships(ds, user.id)));

@@ -1,4 +1,4 @@
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import type { SignUpInput } from '../../shared/schemas/auth.js';
 import { conflict, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -17,21 +17,28 @@ export function assertPasswordNotCommon(password: string, email?: string): void 
   if (isCommonPassword(password, email)) throw validationFailed({ password: COMMON_PASSWORD_MESSAGE });
 }
 
-/** Creates a keeper account (site role `user`). The e-mail arrives lower-cased from the schema. */
-export async function signUp(ds: DataSource, input: SignUpInput): Promise<User> {
-  assertPasswordNotCommon(input.password, input.email);
-  const users = ds.getRepository(User);
-  if (await users.existsBy({ email: input.email })) throw conflict(EMAIL_TAKEN_MESSAGE, { email: EMAIL_TAKEN_MESSAGE });
-  const passwordHash = await hashPassword(input.password);
+/** Inserts a keeper account (site role `user`) with an already made hash; the unique index on e-mail decides races. */
+export async function createAccount(q: DataSource | EntityManager, fields: { email: string; displayName: string; passwordHash: string }): Promise<User> {
+  const users = q.getRepository(User);
   try {
-    return await users.save(
-      users.create({ email: input.email, displayName: input.displayName, passwordHash, role: 'user', passwordChangedAt: new Date() }),
-    );
+    return await users.save(users.create({ ...fields, role: 'user', passwordChangedAt: new Date() }));
   } catch (err) {
     // Two sign-ups racing for one address: the unique index decides.
     if (isUniqueViolation(err)) throw conflict(EMAIL_TAKEN_MESSAGE, { email: EMAIL_TAKEN_MESSAGE });
     throw err;
   }
+}
+
+/**
+ * Creates a keeper account at once (an invite accepted while signed out: the invite's e-mail
+ * proved the address). The public sign-up goes through server/services/sign-up.ts instead, which
+ * does not tell who has an account. The e-mail arrives lower-cased from the schema.
+ */
+export async function signUp(ds: DataSource, input: SignUpInput): Promise<User> {
+  assertPasswordNotCommon(input.password, input.email);
+  if (await ds.getRepository(User).existsBy({ email: input.email })) throw conflict(EMAIL_TAKEN_MESSAGE, { email: EMAIL_TAKEN_MESSAGE });
+  const passwordHash = await hashPassword(input.password);
+  return createAccount(ds, { email: input.email, displayName: input.displayName, passwordHash });
 }
 
 /** The user whose e-mail and password match, or null; takes the same time either way. */

@@ -5,7 +5,7 @@ import { tooManyRequests } from '../errors.js';
 import type { Logger } from '../logger.js';
 
 /** Anything that runs SQL: a DataSource or a transaction's EntityManager. */
-interface Queryable {
+export interface Queryable {
   query(sql: string, parameters?: unknown[]): Promise<unknown>;
 }
 
@@ -19,6 +19,8 @@ export interface WindowCount {
   count: number;
   /** Seconds until the oldest counted row leaves the window (at least 1). */
   retryAfter: number;
+  /** Seconds since the newest counted row (null when none). */
+  sinceNewest: number | null;
 }
 
 /**
@@ -37,12 +39,27 @@ export async function countInWindow<T extends keyof WindowTables>(
   const where = entries.map(([column], i) => `"${column}" = $${i + 2}`).join(' AND ');
   const rows = (await q.query(
     `SELECT count(*) AS n,
-            ceil(extract(epoch FROM (min(created_at) + make_interval(secs => $1) - now()))) AS retry_after
+            ceil(extract(epoch FROM (min(created_at) + make_interval(secs => $1) - now()))) AS retry_after,
+            extract(epoch FROM (now() - max(created_at))) AS since_newest
        FROM "${table}"
       WHERE ${where} AND created_at > now() - make_interval(secs => $1)`,
     [windowSeconds, ...entries.map(([, value]) => value)],
-  )) as { n: string; retry_after: string | null }[];
-  return { count: Number(rows[0]?.n ?? 0), retryAfter: Math.max(1, Number(rows[0]?.retry_after ?? 1)) };
+  )) as { n: string; retry_after: string | null; since_newest: string | null }[];
+  const sinceNewest = rows[0]?.since_newest;
+  return {
+    count: Number(rows[0]?.n ?? 0),
+    retryAfter: Math.max(1, Number(rows[0]?.retry_after ?? 1)),
+    sinceNewest: sinceNewest === null || sinceNewest === undefined ? null : Number(sinceNewest),
+  };
+}
+
+/**
+ * Takes a transaction-scoped advisory lock per key, in a fixed order so two callers sharing
+ * keys cannot deadlock. Every check-then-record limit runs its count and insert under these
+ * locks, so concurrent requests in any number of server processes see each other's rows.
+ */
+export async function lockSubjects(tx: Queryable, keys: string[]): Promise<void> {
+  for (const key of [...new Set(keys)].sort()) await tx.query(`SELECT pg_advisory_xact_lock(hashtextextended($1, 0))`, [key]);
 }
 
 /** The anonymous auth routes that cost a bcrypt hash (cost 12, ~0.2 s) or send an e-mail. */
@@ -62,8 +79,9 @@ const HOUR = 60 * MINUTE;
  * Attempts refused by a limit are not counted, so the window always ends.
  */
 export const ATTEMPT_LIMITS = {
-  // A new account costs a bcrypt hash; ten from one address in an hour covers a family or a club table.
-  'sign-up': { address: { max: 10, windowSeconds: HOUR } },
+  // A new account costs a bcrypt hash and an e-mail; ten from one address in an hour covers a family or a
+  // club table, and three per target e-mail (a retyped form, a lost link) cannot flood a mailbox.
+  'sign-up': { address: { max: 10, windowSeconds: HOUR }, email: { max: 3, windowSeconds: HOUR } },
   // Reset tokens are 32 random bytes (no guessing); the limit bounds the bcrypt hash done before the token is checked.
   'reset-password': { address: { max: 10, windowSeconds: 15 * MINUTE } },
   // Each request may send an e-mail: per target e-mail so one mailbox cannot be flooded, per address for spraying.
@@ -100,10 +118,7 @@ export async function takeAttempt(ds: DataSource, action: AttemptAction, who: { 
     checks.push({ by: 'email', subject: `email:${sha256(who.email.trim().toLowerCase())}`, limit: limits.email });
   }
   return ds.transaction(async (tx) => {
-    // Locks in a fixed order, so two attempts sharing subjects cannot deadlock.
-    for (const c of [...checks].sort((a, b) => a.subject.localeCompare(b.subject))) {
-      await tx.query(`SELECT pg_advisory_xact_lock(hashtextextended($1, 0))`, [`auth_attempts|${action}|${c.subject}`]);
-    }
+    await lockSubjects(tx, checks.map((c) => `auth_attempts|${action}|${c.subject}`));
     let refusal: AttemptRefusal | null = null;
     for (const c of checks) {
       const { count, retryAfter } = await countInWindow(tx, 'auth_attempts', { action, subject: c.subject }, c.limit.windowSeconds);

@@ -9,6 +9,7 @@ import { passwordResetMail } from '../mail/templates/password-reset.js';
 import { assertPasswordNotCommon } from './accounts.js';
 import { hashPassword } from './passwords.js';
 import { endAllSessionsOf } from './sessions.js';
+import { clearAccountSignInFailures } from './sign-in-limiter.js';
 import { returnedRows } from '../data-source.js';
 
 export const RESET_TOKEN_VALID_MINUTES = 60;
@@ -19,12 +20,10 @@ export const INVALID_TOKEN_MESSAGE = 'This reset link is not valid or has expire
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
 /**
- * Sends a single-use reset link when an account has the e-mail; does nothing otherwise. The
- * caller answers the same way in both cases. Only the token's SHA-256 is stored.
+ * Issues a single-use reset link for the user (only the token's SHA-256 is stored; earlier
+ * unused links are retired), or null when the account already had MAX_RESET_MAILS_PER_HOUR.
  */
-export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: string, email: string): Promise<void> {
-  const user = await ds.getRepository(User).findOneBy({ email });
-  if (!user) return;
+export async function issueResetLink(ds: DataSource, appUrl: string, user: User): Promise<string | null> {
   const token = randomBytes(32).toString('base64url');
   const issued = await ds.transaction(async (tx) => {
     // Lock the user's row so concurrent requests count and insert one after another.
@@ -42,8 +41,18 @@ export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: 
     });
     return true;
   });
-  if (!issued) return;
-  const link = `${appUrl}/reset-password?token=${encodeURIComponent(token)}`;
+  return issued ? `${appUrl}/reset-password?token=${encodeURIComponent(token)}` : null;
+}
+
+/**
+ * Sends a single-use reset link when an account has the e-mail; does nothing otherwise. The
+ * caller answers the same way in both cases.
+ */
+export async function sendPasswordReset(ds: DataSource, mailer: Mailer, appUrl: string, email: string): Promise<void> {
+  const user = await ds.getRepository(User).findOneBy({ email });
+  if (!user) return;
+  const link = await issueResetLink(ds, appUrl, user);
+  if (!link) return;
   await mailer.send(user.email, passwordResetMail({ displayName: user.displayName, link, validMinutes: RESET_TOKEN_VALID_MINUTES }));
 }
 
@@ -69,5 +78,7 @@ export async function resetPassword(ds: DataSource, token: string, password: str
     await tx.getRepository(User).update({ id: userId }, { passwordHash, passwordChangedAt: new Date() });
     await tx.getRepository(PasswordResetToken).update({ userId, usedAt: IsNull() }, { usedAt: new Date() });
     await endAllSessionsOf(tx, userId);
+    // The new password is signed in with at once, from anywhere (the 429 sign-in message says so).
+    await clearAccountSignInFailures(tx, user.email);
   });
 }

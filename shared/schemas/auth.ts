@@ -33,6 +33,16 @@ export const signUpSchema = z.strictObject({
 });
 export type SignUpInput = z.infer<typeof signUpSchema>;
 
+/** What a sign-up answers (202), whether or not the address has an account. */
+export const signUpSentSchema = z.object({ message: z.string() });
+export type SignUpSent = z.infer<typeof signUpSentSchema>;
+
+/** The token from the e-mailed link that finishes a sign-up (`/confirm-sign-up?token=`). */
+export const confirmSignUpSchema = z.strictObject({
+  token: z.string({ error: 'This sign-up link is not valid.' }).min(20, 'This sign-up link is not valid.').max(200, 'This sign-up link is not valid.'),
+});
+export type ConfirmSignUpInput = z.infer<typeof confirmSignUpSchema>;
+
 export const signInSchema = z.strictObject({
   email: emailSchema,
   // Sign-in only checks presence: the length rules apply when a password is chosen.
@@ -54,7 +64,7 @@ export type SiteRole = z.infer<typeof siteRoleSchema>;
 export const clubRoleSchema = z.enum(['organizer', 'mentor', 'member']);
 export type ClubRole = z.infer<typeof clubRoleSchema>;
 
-/** What `/api/me` and a successful sign-in/sign-up answer. */
+/** What `/api/me`, a successful sign-in and a confirmed sign-up answer. */
 export const meSchema = z.object({
   id: z.string().uuid(),
   email: z.string(),

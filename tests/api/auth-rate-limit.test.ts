@@ -26,6 +26,7 @@ const from = (address: string, app: TestApp = ctx.app) => {
 
 const NEW_PASSWORD = 'copper-reef-lantern-73';
 const userCount = () => ctx.deps.dataSource.getRepository(User).count();
+const pendingCount = async () => ((await ctx.deps.dataSource.query(`SELECT count(*)::int AS n FROM pending_sign_ups`)) as { n: number }[])[0].n;
 const wellFormedToken = () => randomBytes(32).toString('base64url');
 
 /** Checks a 429 in the project's error shape with a Retry-After inside the window. */
@@ -51,29 +52,55 @@ beforeEach(() => {
 afterEach(() => ctx.deps.background.drain());
 
 describe('attempt limits on the expensive anonymous auth routes (common practice; see server/services/attempt-limiter.ts)', () => {
-  it('sign-up: the 11th in an hour from one address → 429 before any hash, no account; other addresses and processes agree', async () => {
+  it('sign-up: the 11th in an hour from one address → 429 before any hash or e-mail; other addresses and processes agree', async () => {
     const { max, windowSeconds } = ATTEMPT_LIMITS['sign-up'].address;
     expect(max).toBe(10);
     const here = '203.0.113.10';
     const hashesAtStart = hashCalls();
     for (let i = 0; i < max; i++) {
-      await from(here).post('/api/auth/sign-up', { email: `fry${i}@example.org`, password: GOOD_PASSWORD, displayName: `Fry ${i}` }).expect(201);
+      await from(here).post('/api/auth/sign-up', { email: `fry${i}@example.org`, password: GOOD_PASSWORD, displayName: `Fry ${i}` }).expect(202);
     }
-    const before = { users: await userCount(), hashes: hashCalls() };
+    // The hash and the e-mail are made after the answer.
+    await ctx.deps.background.drain();
+    const before = { pending: await pendingCount(), hashes: hashCalls(), mails: ctx.mail.messages().length };
     expect(before.hashes - hashesAtStart, 'the spy sees every allowed sign-up hash').toBe(max);
+    expect(before.pending).toBe(max);
     const limited = await from(here).post('/api/auth/sign-up', { email: 'late@example.org', password: GOOD_PASSWORD, displayName: 'Late' });
     expectLimited(limited, windowSeconds);
     // The count lives in PostgreSQL: a second server process over the same database refuses too.
     const other = ctx.makeApp();
     expect((await from(here, other).post('/api/auth/sign-up', { email: 'late@example.org', password: GOOD_PASSWORD, displayName: 'Late' })).status).toBe(429);
-    expect(await userCount()).toBe(before.users);
+    await ctx.deps.background.drain();
+    expect(await pendingCount()).toBe(before.pending);
     expect(hashCalls()).toBe(before.hashes);
-    expect(await ctx.deps.dataSource.getRepository(User).existsBy({ email: 'late@example.org' })).toBe(false);
+    expect(ctx.mail.messages().length).toBe(before.mails);
 
-    await from('198.51.100.20').post('/api/auth/sign-up', { email: 'late@example.org', password: GOOD_PASSWORD, displayName: 'Late' }).expect(201);
+    await from('198.51.100.20').post('/api/auth/sign-up', { email: 'late@example.org', password: GOOD_PASSWORD, displayName: 'Late' }).expect(202);
+    await ctx.mail.waitFor((m) => m.to.includes('late@example.org'));
     const logs = limitedLogs(['late@example.org', GOOD_PASSWORD]);
     expect(logs.map((e) => e.fields.action)).toEqual(['sign-up', 'sign-up']);
     expect(logs[0].fields).toMatchObject({ by: 'address', address: here });
+  });
+
+  it('sign-up: the 4th in an hour for one e-mail (from anywhere) → 429 and no e-mail, the same whether or not it has an account', async () => {
+    const { max, windowSeconds } = ATTEMPT_LIMITS['sign-up'].email;
+    expect(max).toBe(3);
+    await createUser(ctx.deps.dataSource, { email: 'guppy@example.org' });
+    const ask = (email: string, i: number) =>
+      from(`192.0.2.${60 + i}`).post('/api/auth/sign-up', { email, password: GOOD_PASSWORD, displayName: 'Someone' });
+    const answers = { known: [] as { status: number; body: unknown }[], unknown: [] as { status: number; body: unknown }[] };
+    for (let i = 0; i <= max; i++) {
+      const [k, u] = [await ask('guppy@example.org', i), await ask('nobody-here@example.org', i)];
+      answers.known.push({ status: k.status, body: k.body });
+      answers.unknown.push({ status: u.status, body: u.body });
+    }
+    expect(answers.known.map((a) => a.status)).toEqual([202, 202, 202, 429]);
+    expect(answers.unknown).toEqual(answers.known);
+    await ctx.deps.background.drain();
+    expect(ctx.mail.messages().filter((m) => m.to.includes('guppy@example.org'))).toHaveLength(max);
+    expect(ctx.mail.messages().filter((m) => m.to.includes('nobody-here@example.org'))).toHaveLength(max);
+    expectLimited(await ask('guppy@example.org', 9), windowSeconds);
+    expect(limitedLogs(['guppy@example.org', 'nobody-here@example.org']).every((e) => e.fields.by === 'email')).toBe(true);
   });
 
   it('reset-password: the 11th in 15 minutes from one address → 429 before any hash; the password stays; another address resets', async () => {
@@ -146,6 +173,14 @@ describe('attempt limits on the expensive anonymous auth routes (common practice
     await from('198.51.100.22').post('/api/auth/forgot-password', { email: 'danio@example.org' }).expect(202);
     await ctx.mail.waitFor((m) => m.to.includes('danio@example.org'));
     expect(limitedLogs(['danio@example.org'])[0].fields).toMatchObject({ action: 'forgot-password', by: 'address', address: here });
+  });
+
+  it('an IPv6 client is counted by its /64: a new address inside it is the same subject; the next /64 is not', async () => {
+    const { max } = ATTEMPT_LIMITS['forgot-password'].address;
+    for (let i = 0; i < max; i++) await from(`2001:db8:7:7::${(i + 1).toString(16)}`).post('/api/auth/forgot-password', { email: `roamer${i}@example.org` }).expect(202);
+    await from('2001:db8:7:7:abcd:ef01:2345:6789').post('/api/auth/forgot-password', { email: 'roamer-late@example.org' }).expect(429);
+    await from('2001:db8:7:8::1').post('/api/auth/forgot-password', { email: 'roamer-late@example.org' }).expect(202);
+    expect(limitedLogs(['roamer-late@example.org'])[0].fields).toMatchObject({ by: 'address', address: '2001:db8:7:7::/64' });
   });
 
   it('concurrent requests cannot slip past the limit together (the check and the count are one locked step)', async () => {

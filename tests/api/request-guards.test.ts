@@ -28,7 +28,7 @@ describe('CSRF and content-type guards on unsafe /api requests (ASVS 3.5.1–3.5
   });
 
   it('accepts a same-origin request with the header', async () => {
-    await client(ctx.app).post('/api/auth/sign-up', body).set('Sec-Fetch-Site', 'same-origin').expect(201);
+    await client(ctx.app).post('/api/auth/sign-up', body).set('Sec-Fetch-Site', 'same-origin').expect(202);
   });
 
   it('refuses a text/plain body with 415 (a cross-site "simple request" shape), and writes nothing', async () => {

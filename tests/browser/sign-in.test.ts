@@ -1,7 +1,7 @@
 import type { Browser } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, mailbox, newPage, screenshot, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, mailbox, mailedLink, newPage, screenshot, signUp, VIEWPORTS, type ViewportName } from './support';
 
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
 
@@ -56,13 +56,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('at %s size', (size) => 
 describe('account life cycle in the browser', () => {
   it('signs up, sees the empty state, signs out and cannot come back without signing in', async () => {
     const { context, page } = await newPage(browser, 'phone', 'dark');
-    const email = `newcomer-${Date.now()}@example.org`;
-    await page.goto('/sign-up');
-    await page.getByTestId('sign-up-name').fill('Newcomer');
-    await page.getByTestId('sign-up-email').fill(email);
-    await page.getByTestId('sign-up-password').fill('tidal-pebble-heron-90');
-    await page.getByTestId('sign-up-submit').click();
-    await page.getByTestId('home-empty').waitFor();
+    await signUp(page, { displayName: 'Newcomer', email: `newcomer-${Date.now()}@example.org`, password: 'tidal-pebble-heron-90' });
     await screenshot(page, 'home-empty-phone-dark');
 
     await page.goto('/account');
@@ -73,15 +67,20 @@ describe('account life cycle in the browser', () => {
     await context.close();
   });
 
-  it('puts a duplicate e-mail error next to the e-mail field', async () => {
+  it('answers a sign-up for an e-mail that has an account like any other, and e-mails its owner instead', async () => {
     const { context, page } = await newPage(browser, 'wide');
     await page.goto('/sign-up');
     await page.getByTestId('sign-up-name').fill('Someone');
     await page.getByTestId('sign-up-email').fill(member.email);
     await page.getByTestId('sign-up-password').fill('tidal-pebble-heron-90');
     await page.getByTestId('sign-up-submit').click();
-    await page.getByTestId('sign-up-email-error').waitFor();
-    await screenshot(page, 'sign-up-duplicate-wide');
+    const sent = await page.getByTestId('sign-up-sent').innerText();
+    expect(sent).toMatch(/if it already has one, the e-mail helps you sign in/);
+    await screenshot(page, 'sign-up-sent-wide');
+    // The owner hears of the attempt, with a way in (sent just after the answer).
+    await mailedLink(member.email, /https?:\/\/\S+\/sign-in\b/);
+    const mail = (await mailbox()).find((m) => m.to.includes(member.email));
+    expect(mail?.subject).toBe('You already have a Shoalshift account');
     await context.close();
   });
 
@@ -89,12 +88,7 @@ describe('account life cycle in the browser', () => {
     // A fresh account, so other test files' demo sign-ins keep their passwords.
     const keeper = { email: `forgetful-${Date.now()}@example.org` };
     const { context, page } = await newPage(browser, 'phone');
-    await page.goto('/sign-up');
-    await page.getByTestId('sign-up-name').fill('Forgetful');
-    await page.getByTestId('sign-up-email').fill(keeper.email);
-    await page.getByTestId('sign-up-password').fill('tidal-pebble-heron-90');
-    await page.getByTestId('sign-up-submit').click();
-    await page.getByTestId('home-empty').waitFor();
+    await signUp(page, { displayName: 'Forgetful', email: keeper.email, password: 'tidal-pebble-heron-90' });
     await page.goto('/account');
     await page.getByTestId('sign-out').click();
     await page.getByTestId('screen-sign-in').waitFor();

@@ -64,3 +64,30 @@ export async function mailbox(): Promise<{ to: string; subject: string; text: st
   const res = await fetch(`${MAIL_URL}/messages`);
   return ((await res.json()) as { messages: { to: string; subject: string; text: string }[] }).messages;
 }
+
+/** The newest link in an e-mail to `to` matching `pattern`, waiting up to 5 s for it to arrive. */
+export async function mailedLink(to: string, pattern: RegExp): Promise<string> {
+  for (let i = 0; i < 50; i++) {
+    const link = (await mailbox()).filter((m) => m.to.includes(to)).map((m) => pattern.exec(m.text)?.[0]).find(Boolean);
+    if (link) return link;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no e-mail to ${to} with a link matching ${pattern}`);
+}
+
+/**
+ * Signs up through the form and finishes with the e-mailed link, as a newcomer does; resolves
+ * once the new keeper's empty home shows.
+ */
+export async function signUp(page: Page, person: { displayName: string; email: string; password: string }): Promise<void> {
+  await page.goto('/sign-up');
+  await page.getByTestId('sign-up-name').fill(person.displayName);
+  await page.getByTestId('sign-up-email').fill(person.email);
+  await page.getByTestId('sign-up-password').fill(person.password);
+  await page.getByTestId('sign-up-submit').click();
+  await page.getByTestId('sign-up-sent').waitFor();
+  const link = new URL(await mailedLink(person.email, /https?:\/\/\S+\/confirm-sign-up\?token=[\w-]+/));
+  await page.goto(link.pathname + link.search);
+  await page.getByTestId('confirm-sign-up-submit').click();
+  await page.getByTestId('home-empty').waitFor();
+}

@@ -48,6 +48,8 @@ export const MATRIX: Record<string, MatrixRow> = {
     request: (_fx, actor) => ({ path: '/api/auth/sign-up', body: { email: `new.${actor}@example.org`, password: 'brackish-river-stone-9', displayName: 'New' } }),
     expect: all('ok'),
   },
+  // An unknown link is refused the same way for everyone (a valid one is tested in auth.test.ts).
+  'POST /api/auth/confirm-sign-up': { request: () => ({ path: '/api/auth/confirm-sign-up', body: { token: 'x'.repeat(43) } }), expect: all(400) },
   'POST /api/auth/sign-in': {
     request: (fx) => ({ path: '/api/auth/sign-in', body: { email: fx.users.keeper.email, password: 'tidal-moss-lantern-42' } }),
     expect: all('ok'),

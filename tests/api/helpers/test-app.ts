@@ -20,6 +20,7 @@ const TABLES = [
   'sign_in_failures',
   'auth_attempts',
   'password_reset_tokens',
+  'pending_sign_ups',
   'plans',
   'readings',
   'livestock',

@@ -27,7 +27,11 @@ describe('logs (ASVS 16.2.5, 16.3.1–16.3.2)', () => {
     await c.agent.post('/api/auth/sign-out').expect(403);
     await client(ctx.app).get('/api/tanks').expect(401);
     const signUpPassword = 'Another-Long-Secret-Phrase-7';
-    await client(ctx.app).post('/api/auth/sign-up', { email: 'new@example.org', password: signUpPassword, displayName: 'New' }).expect(201);
+    const newcomer = client(ctx.app);
+    await newcomer.post('/api/auth/sign-up', { email: 'new@example.org', password: signUpPassword, displayName: 'New' }).expect(202);
+    await ctx.deps.background.drain();
+    const signUpToken = /confirm-sign-up\?token=([A-Za-z0-9_-]+)/.exec((await ctx.mail.waitFor((m) => m.to.includes('new@example.org'))).text)![1];
+    await newcomer.post('/api/auth/confirm-sign-up', { token: signUpToken }).expect(201);
     await c.post('/api/auth/sign-out').expect(204);
 
     const events = ctx.logs.entries.map((e) => e.event);
@@ -39,7 +43,7 @@ describe('logs (ASVS 16.2.5, 16.3.1–16.3.2)', () => {
     expect(denied.find((e) => e.fields.code === 'unauthorized')?.fields.route).toBe('/api/tanks');
 
     const text = JSON.stringify(ctx.logs.entries);
-    for (const secret of [wrongGuess, GOOD_PASSWORD, signUpPassword, cookie, cookie.split('=')[1]!, sessionIdOf(cookie)]) {
+    for (const secret of [wrongGuess, GOOD_PASSWORD, signUpPassword, signUpToken, cookie, cookie.split('=')[1]!, sessionIdOf(cookie)]) {
       expect(secret.length).toBeGreaterThan(10);
       expect(text).not.toContain(secret);
     }
