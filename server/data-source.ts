@@ -1,11 +1,25 @@
 import 'reflect-metadata';
-import { DataSource } from 'typeorm';
+import { DataSource, type EntityManager } from 'typeorm';
 import { entities } from './entities/index.js';
 import { migrations } from './migrations/index.js';
 import type { Logger } from './logger.js';
 
+/**
+ * What services read and write through: the app's data source, or a transaction's entity
+ * manager (an Idempotency-Key's transaction: server/middleware/request-db.ts). Both have
+ * `getRepository`, `query` and `transaction` (nested in a transaction, a savepoint).
+ */
+export type Db = DataSource | EntityManager;
+
+export interface DataSourceOptions {
+  /** Shown in pg_stat_activity. */
+  applicationName?: string;
+  /** Extra pg pool settings (size, idle timeout). */
+  pool?: { max?: number; idleTimeoutMillis?: number; allowExitOnIdle?: boolean };
+}
+
 /** The TypeORM data source. Schema changes happen only through migrations, never synchronize. */
-export function createDataSource(databaseUrl: string, logger?: Logger): DataSource {
+export function createDataSource(databaseUrl: string, logger?: Logger, options: DataSourceOptions = {}): DataSource {
   return new DataSource({
     type: 'postgres',
     url: databaseUrl,
@@ -14,8 +28,8 @@ export function createDataSource(databaseUrl: string, logger?: Logger): DataSour
     synchronize: false,
     migrationsRun: false,
     migrationsTransactionMode: 'each',
-    applicationName: 'shoalshift',
-    extra: { max: 10, connectionTimeoutMillis: 5_000 },
+    applicationName: options.applicationName ?? 'shoalshift',
+    extra: { max: 10, connectionTimeoutMillis: 5_000, ...options.pool },
     // A pooled client that errors while idle (database restart, network drop) must not crash
     // the process: node-postgres throws if the pool has no 'error' listener.
     poolErrorHandler: (err: unknown) => logger?.log('warn', 'db.pool_error', { error: String(err) }),
@@ -25,4 +39,10 @@ export function createDataSource(databaseUrl: string, logger?: Logger): DataSour
 /** The rows of an `UPDATE … RETURNING`: TypeORM's postgres driver answers it with [rows, affectedCount]. */
 export function returnedRows<T>(result: unknown[]): T[] {
   return (Array.isArray(result[0]) ? result[0] : result) as T[];
+}
+
+/** A unique index refused the row (PostgreSQL 23505); with `constraint`, only that index. */
+export function isUniqueViolation(err: unknown, constraint?: string): boolean {
+  if (typeof err !== 'object' || err === null || (err as { code?: unknown }).code !== '23505') return false;
+  return constraint === undefined || (err as { constraint?: unknown }).constraint === constraint;
 }

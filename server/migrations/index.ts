@@ -5,6 +5,7 @@ import { ForecastCache1796180000500 } from './1796180000500-forecast-cache.js';
 import { ClubsLessonsSharing1796300000000 } from './1796300000000-clubs-lessons-sharing.js';
 import { ClubInviteRevocation1796312000000 } from './1796312000000-club-invite-revocation.js';
 import { AuthAttempts1796313000000 } from './1796313000000-auth-attempts.js';
+import { ReadingsUniqueTime1796316400000 } from './1796316400000-readings-unique-time.js';
 
 /** In order. Listed as classes (not globs) so tsx, compiled JS and vitest agree. */
-export const migrations = [InitialSchema1796162158000, IdempotencyKeys1796170000000, KeeperPreferencesAndReadingNotes1796172100000, ForecastCache1796180000500, ClubsLessonsSharing1796300000000, ClubInviteRevocation1796312000000, AuthAttempts1796313000000];
+export const migrations = [InitialSchema1796162158000, IdempotencyKeys1796170000000, KeeperPreferencesAndReadingNotes1796172100000, ForecastCache1796180000500, ClubsLessonsSharing1796300000000, ClubInviteRevocation1796312000000, AuthAttempts1796313000000, ReadingsUniqueTime1796316400000];

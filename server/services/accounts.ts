@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { SignUpInput } from '../../shared/schemas/auth.js';
 import { conflict, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -18,7 +19,7 @@ export function assertPasswordNotCommon(password: string, email?: string): void 
 }
 
 /** Creates a keeper account (site role `user`). The e-mail arrives lower-cased from the schema. */
-export async function signUp(ds: DataSource, input: SignUpInput): Promise<User> {
+export async function signUp(ds: Db, input: SignUpInput): Promise<User> {
   assertPasswordNotCommon(input.password, input.email);
   const users = ds.getRepository(User);
   if (await users.existsBy({ email: input.email })) throw conflict(EMAIL_TAKEN_MESSAGE, { email: EMAIL_TAKEN_MESSAGE });

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { ShareableType, SharedView } from '../../shared/schemas/share.js';
 import { notFound } from '../errors.js';
 import { Lesson } from '../entities/lesson.js';
@@ -13,7 +14,7 @@ import { newLinkToken, sha256Hex } from './secret-tokens.js';
 const NO_SUCH_LINK = 'This link does not work: it was revoked, has expired, or is mistyped.';
 
 /** 404 unless the user may share the item: the plan's tank owner, or a lesson's manager. */
-export async function assertMayShare(ds: DataSource, userId: string, itemType: ShareableType, itemId: string): Promise<void> {
+export async function assertMayShare(ds: Db, userId: string, itemType: ShareableType, itemId: string): Promise<void> {
   if (itemType === 'plan') {
     const rows: unknown[] = await ds.query(`SELECT 1 FROM plans p JOIN tanks t ON t.id = p.tank_id WHERE p.id = $1 AND t.owner_id = $2`, [itemId, userId]);
     if (rows.length === 0) throw notFound('No such plan.');
@@ -25,7 +26,7 @@ export async function assertMayShare(ds: DataSource, userId: string, itemType: S
 
 /** Creates a link; returns the row and the token (shown once, never stored). */
 export async function createShareLink(
-  ds: DataSource,
+  ds: Db,
   userId: string,
   input: { itemType: ShareableType; itemId: string; expiresInDays?: number },
 ): Promise<{ link: ShareLink; token: string }> {
