@@ -46,3 +46,18 @@ export function isUniqueViolation(err: unknown, constraint?: string): boolean {
   if (typeof err !== 'object' || err === null || (err as { code?: unknown }).code !== '23505') return false;
   return constraint === undefined || (err as { constraint?: unknown }).constraint === constraint;
 }
+
+/**
+ * Runs independent queries: side by side on a pool, one after another on a transaction's single
+ * connection (a pg client runs one query at a time; overlapping ones are deprecated in pg 8).
+ */
+export async function independentQueries<T extends readonly (() => Promise<unknown>)[]>(
+  db: Db,
+  ...queries: T
+): Promise<{ -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> }> {
+  type Out = { -readonly [K in keyof T]: Awaited<ReturnType<T[K]>> };
+  if (!('queryRunner' in db && db.queryRunner)) return (await Promise.all(queries.map((q) => q()))) as Out;
+  const out: unknown[] = [];
+  for (const q of queries) out.push(await q());
+  return out as Out;
+}

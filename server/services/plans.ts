@@ -1,5 +1,5 @@
 import type { DataSource } from 'typeorm';
-import type { Db } from '../data-source.js';
+import { independentQueries, type Db } from '../data-source.js';
 import { parseScenario, ScenarioError, type ScenarioEvent } from '../../shared/schemas/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
 import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
@@ -65,11 +65,12 @@ export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasR
 }
 
 export async function scenarioTankOf(ds: Db, tank: Tank): Promise<ScenarioTank> {
-  const [livestock, hasReadings] = await Promise.all([
-    ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
+  const [livestock, hasReadings] = await independentQueries(
+    ds,
+    () => ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
     // Not a count: a tank's log grows for years, and only "any at all" matters here.
-    ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
-  ]);
+    () => ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
+  );
   return toScenarioTank(tank, livestock, hasReadings);
 }
 
