@@ -68,7 +68,8 @@ export async function startServer(port: number, databaseUrl: string, extraEnv: R
       APP_URL: `https://127.0.0.1:${port}`,
       SESSION_SECRET,
       STATIC_DIR: staticDir,
-      SMTP_PORT: '2631',
+      // Nothing listens there: no bench step sends mail (override when 2631 is taken).
+      SMTP_PORT: process.env.BENCH_SMTP_PORT ?? '2631',
       ...extraEnv,
     },
     stdio: ['ignore', 'pipe', 'pipe'],
