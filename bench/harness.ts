@@ -68,7 +68,8 @@ export async function startServer(port: number, databaseUrl: string, extraEnv: R
       APP_URL: `https://127.0.0.1:${port}`,
       SESSION_SECRET,
       STATIC_DIR: staticDir,
-      SMTP_PORT: '2631',
+      // Nothing listens there: no bench step sends mail (override when 2631 is taken).
+      SMTP_PORT: process.env.BENCH_SMTP_PORT ?? '2631',
       // The benches send four heavy requests at once from one demo account; the default cap
       // of two per account would answer half of them 429 (tests/api/engine-limits.test.ts tests the cap).
       ENGINE_REQUESTS_PER_ACCOUNT: '4',

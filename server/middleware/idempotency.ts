@@ -1,8 +1,10 @@
 import { createHash } from 'node:crypto';
 import type { RequestHandler, Response } from 'express';
-import { Pool, type PoolClient } from 'pg';
+import type { DataSource, QueryRunner } from 'typeorm';
+import { createDataSource } from '../data-source.js';
 import { AppError, badRequest, serviceUnavailable } from '../errors.js';
 import type { Logger } from '../logger.js';
+import { bindKeyedTransaction, type KeyedTransaction } from './request-db.js';
 
 export const IDEMPOTENCY_HEADER = 'idempotency-key';
 export const REPLAYED_HEADER = 'Idempotent-Replayed';
@@ -11,6 +13,14 @@ const KEY_PATTERN = /^[\x21-\x7e]{1,200}$/;
 /** Kept one day: long enough for any client retry loop. */
 const KEEP_HOURS = 24;
 const PRUNE_EVERY = 500;
+/** A retry waits this long for the first attempt of its key (then 409 in_progress). */
+const LOCK_TIMEOUT = '15s';
+/**
+ * A key's transaction idle this long means its route is stuck: PostgreSQL ends the session,
+ * so the row locks and the connection come back (the answer is a 503; the retry runs again).
+ * Longer than any engine run a keyed POST can start.
+ */
+const IDLE_IN_TRANSACTION_TIMEOUT = '120s';
 
 const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
 
@@ -18,29 +28,35 @@ const sha256 = (text: string) => createHash('sha256').update(text).digest('hex')
  * `Idempotency-Key` for signed-in POST requests (any route; /api/auth/* excepted, where a
  * replayed answer would not start a session).
  *
- * How it works: the first request with a key inserts a row (scope = user + path, key) in a
- * transaction it holds open while the route runs, so a concurrent retry of the same key waits
- * on the unique index. A 2xx answer is stored and committed BEFORE it is sent, so every
- * acknowledged answer can be replayed; a non-2xx answer rolls the row back so a retry runs
- * again (4xx writes nothing). If this process dies mid-request, PostgreSQL rolls the open
- * transaction back when the connection drops, and the retry runs the request again.
+ * One transaction per keyed request holds the key row, every write of the route and the stored
+ * answer, and commits them together before the answer leaves:
+ * - the first request with a key inserts its row (scope = user + hashed path, key); a
+ *   concurrent retry of the key waits on the unique index, then replays the stored answer;
+ * - the route reads and writes through the transaction's manager (`requestDb(req, ds)`,
+ *   server/middleware/request-db.ts); side effects wait for COMMIT (`afterCommit`);
+ * - a 2xx answer is stored and committed before it is sent; any other answer rolls back the
+ *   key and the route's writes together, so a retry runs again;
+ * - a client that goes away does not cancel anything: the route finishes, the answer is stored
+ *   and committed, and the retry replays it;
+ * - a failed COMMIT (connection lost, process killed) leaves neither the writes nor the key:
+ *   PostgreSQL rolls the open transaction back, and the retry runs the request again.
  *
- * Limit (said plainly): the route's own write commits on its own connection just before the
- * key row commits; a crash in that gap (microseconds) lets the retry write a second time.
- * Closing it fully needs the route to write inside the key's transaction.
- *
- * A separate small pool so a held key transaction can never starve the routes' pool.
+ * Its own data source with a small pool, so held key transactions can never starve the pool
+ * the routes read through (a keyed route also reads through the app's data source, e.g. in
+ * `requireAuth`).
  */
 export function createIdempotency(databaseUrl: string, logger: Logger) {
-  const pool = new Pool({
-    connectionString: databaseUrl,
-    max: 10,
-    connectionTimeoutMillis: 5_000,
-    idleTimeoutMillis: 5_000,
-    allowExitOnIdle: true,
-    application_name: 'shoalshift-idempotency',
+  const keyedDs = createDataSource(databaseUrl, logger, {
+    applicationName: 'shoalshift-idempotency',
+    pool: { max: 10, idleTimeoutMillis: 5_000, allowExitOnIdle: true },
   });
-  pool.on('error', (err) => logger.log('warn', 'db.idempotency_pool_error', { error: String(err) }));
+  // Initialised on the first keyed request (and again after a failed attempt).
+  let ready: Promise<DataSource> | undefined;
+  const dataSource = () =>
+    (ready ??= keyedDs.initialize().catch((err: unknown) => {
+      ready = undefined;
+      throw err;
+    }));
   let keyed = 0;
 
   const middleware: RequestHandler = async (req, res, next) => {
@@ -54,7 +70,8 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
     // Anonymous answers are not stored: a key must never let one person replay another's answer.
     if (!userId || req.path.startsWith('/auth/')) return next();
 
-    const scope = `${userId}:POST ${req.baseUrl}${req.path}`.slice(0, 300);
+    // The path is hashed: it may carry a secret (an invite token in /invites/:token/accept).
+    const scope = `${userId}:${sha256(`POST ${req.baseUrl}${req.path}`)}`;
     // A multipart upload is not parsed yet here: its media type and length stand in for the
     // body (not the boundary, which a client draws afresh for each attempt).
     const fingerprint = sha256(
@@ -62,48 +79,48 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
         ? JSON.stringify(req.body)
         : `${(req.get('content-type') ?? '').split(';')[0]}|${req.get('content-length') ?? ''}`,
     );
-    if (++keyed % PRUNE_EVERY === 0) {
-      pool.query(`DELETE FROM idempotency_keys WHERE created_at < now() - interval '${KEEP_HOURS} hours'`).catch(() => {});
-    }
 
-    let client: PoolClient;
+    let qr: QueryRunner;
     try {
-      client = await pool.connect();
+      const ds = await dataSource();
+      if (++keyed % PRUNE_EVERY === 0) {
+        ds.query(`DELETE FROM idempotency_keys WHERE created_at < now() - interval '${KEEP_HOURS} hours'`).catch(() => {});
+      }
+      qr = ds.createQueryRunner();
+      await qr.connect();
     } catch (err) {
       return next(err);
     }
-    // A checked-out client that loses its connection between queries (PostgreSQL restarted
-    // while the route runs) emits 'error'; with no listener node-postgres crashes the process.
-    let lostConnection: Error | undefined;
-    const onClientError = (err: Error) => {
-      lostConnection = err;
-      logger.log('warn', 'db.idempotency_client_error', { error: String(err) });
-    };
-    client.on('error', onClientError);
     let released = false;
-    const release = (err?: Error) => {
+    const release = () => {
       if (released) return;
       released = true;
-      client.off('error', onClientError);
-      client.release(err ?? lostConnection);
+      qr.release().catch(() => {});
+    };
+    const rollback = async () => {
+      try {
+        if (qr.isTransactionActive) await qr.rollbackTransaction();
+      } catch {
+        // The connection is gone or broken: PostgreSQL has rolled back already. TypeORM drops
+        // a client that errored; one that merely failed a query is clean after the failure.
+      }
+      release();
     };
 
     try {
-      await client.query('BEGIN');
-      // A retry waits for the first request to finish, but not forever.
-      await client.query(`SET LOCAL lock_timeout = '15s'`);
-      const inserted = await client.query(
+      await qr.startTransaction();
+      await qr.query(`SET LOCAL lock_timeout = '${LOCK_TIMEOUT}'`);
+      await qr.query(`SET LOCAL idle_in_transaction_session_timeout = '${IDLE_IN_TRANSACTION_TIMEOUT}'`);
+      const inserted: unknown[] = await qr.query(
         `INSERT INTO idempotency_keys (scope, key, fingerprint, status) VALUES ($1, $2, $3, 0) ON CONFLICT DO NOTHING RETURNING 1`,
         [scope, key, fingerprint],
       );
-      if (inserted.rowCount === 0) {
-        await client.query('ROLLBACK');
-        release();
+      if (inserted.length === 0) {
+        await rollback();
         return replay(res, next);
       }
     } catch (err) {
-      await client.query('ROLLBACK').catch(() => {});
-      release(err instanceof Error ? err : undefined);
+      await rollback();
       if (err && typeof err === 'object' && (err as { code?: string }).code === '55P03') {
         return next(new AppError(409, 'in_progress', 'A request with this Idempotency-Key is still running. Retry shortly.', undefined, { 'Retry-After': '1' }));
       }
@@ -112,7 +129,7 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
 
     async function replay(response: Response, nextFn: typeof next) {
       try {
-        const { rows } = await pool.query<{ fingerprint: string; status: number; body: unknown }>(
+        const rows: { fingerprint: string; status: number; body: unknown }[] = await (await dataSource()).query(
           `SELECT fingerprint, status, body FROM idempotency_keys WHERE scope = $1 AND key = $2`,
           [scope, key],
         );
@@ -129,20 +146,29 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
       }
     }
 
-    // Store a 2xx answer and commit before it leaves; anything else rolls back.
+    const tx: KeyedTransaction = { manager: qr.manager, afterCommit: [] };
+    bindKeyedTransaction(req, tx);
+
+    // Store a 2xx answer and commit it with the route's writes before it leaves; anything else
+    // rolls both back. Side effects run once COMMIT has succeeded, before the answer is sent.
     const settle = async (status: number, body: unknown) => {
-      if (status >= 200 && status < 300) {
-        await client.query(`UPDATE idempotency_keys SET status = $3, body = $4 WHERE scope = $1 AND key = $2`, [
-          scope,
-          key,
-          status,
-          body === undefined ? null : JSON.stringify(body),
-        ]);
-        await client.query('COMMIT');
-      } else {
-        await client.query('ROLLBACK');
-      }
+      if (status < 200 || status >= 300) return rollback();
+      const kept = tx.storedBody ? tx.storedBody.body : body;
+      await qr.query(`UPDATE idempotency_keys SET status = $3, body = $4 WHERE scope = $1 AND key = $2`, [
+        scope,
+        key,
+        status,
+        kept === undefined ? null : JSON.stringify(kept),
+      ]);
+      await qr.commitTransaction();
       release();
+      for (const task of tx.afterCommit) {
+        try {
+          await task();
+        } catch (err) {
+          logger.log('error', 'idempotency.after_commit_failed', { error: err instanceof Error ? err.message : String(err) });
+        }
+      }
     };
 
     let settled = false;
@@ -150,8 +176,7 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
     const originalEnd = res.end.bind(res) as (...args: unknown[]) => Response;
     const fail = (err: unknown) => {
       logger.log('error', 'idempotency.store_failed', { error: err instanceof Error ? err.message : String(err) });
-      client.query('ROLLBACK').catch(() => {});
-      release(err instanceof Error ? err : undefined);
+      void rollback();
       res.status(503);
       originalJson(serviceUnavailable().toBody());
     };
@@ -167,14 +192,21 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
       settle(res.statusCode, undefined).then(() => originalEnd(...args), fail);
       return res;
     }) as Response['end'];
-    // Client gone or route never answered: give the row back.
+    // A client that goes away changes nothing: the route finishes and its answer is stored for
+    // the retry. (The transaction is deliberately not tied to the socket.)
     res.on('close', () => {
-      if (settled) return;
-      settled = true;
-      client.query('ROLLBACK').then(() => release(), (err: Error) => release(err));
+      if (!settled) logger.log('info', 'idempotency.client_gone', { path: `${req.baseUrl}${req.path}`.replace(/[^/]{20,}/g, ':value') });
     });
     next();
   };
 
-  return { middleware, close: () => pool.end() };
+  return {
+    middleware,
+    close: async () => {
+      const pending = ready;
+      ready = undefined;
+      await pending?.catch(() => {});
+      if (keyedDs.isInitialized) await keyedDs.destroy();
+    },
+  };
 }

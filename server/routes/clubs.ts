@@ -4,6 +4,7 @@ import type { AppDeps } from '../deps.js';
 import { AppError, conflict, notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { afterCommit, requestDb } from '../middleware/request-db.js';
 import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
 import { listComments, listShares, loadSharedItem, shareItem, unshare, visibleShare } from '../services/club-shares.js';
 import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRole, setMemberRole } from '../services/clubs.js';
@@ -29,9 +30,10 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
   });
 
   router.post('/', auth, validateBody(createClubSchema), async (req, res) => {
-    const membership = await createClub(ds, currentUser(req).id, validBody(req, createClubSchema).name);
+    const db = requestDb(req, ds);
+    const membership = await createClub(db, currentUser(req).id, validBody(req, createClubSchema).name);
     logger.log('info', 'clubs.created', { clubId: membership.clubId, userId: membership.userId });
-    res.status(201).json(presentClub(membership, await listClubMembers(ds, membership.clubId)));
+    res.status(201).json(presentClub(membership, await listClubMembers(db, membership.clubId)));
   });
 
   router.get('/:clubId', auth, async (req, res) => {
@@ -41,7 +43,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
 
   router.post('/:clubId/invites', auth, validateBody(createInviteSchema), async (req, res) => {
     const membership = await member(req, ['organizer']);
-    const { invite, send } = await createInvite(ds, mailer, config.appUrl, {
+    const { invite, send } = await createInvite(requestDb(req, ds), mailer, config.appUrl, {
       clubId: membership.clubId,
       clubName: membership.club?.name ?? '',
       inviter: currentUser(req),
@@ -50,7 +52,8 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
       if (err instanceof AppError && err.status === 429) logger.log('warn', 'clubs.invite_limited', { clubId: membership.clubId, userId: membership.userId });
       throw err;
     });
-    background.run('club-invite-mail', send);
+    // Once the invite is committed: a rolled-back attempt mails nothing, a replay mails nothing again.
+    await afterCommit(req, () => background.run('club-invite-mail', send));
     res.status(201).json({ id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() });
   });
 
@@ -84,7 +87,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
 
   router.post('/:clubId/leave', auth, async (req, res) => {
     const membership = await member(req);
-    await endMembership(ds, membership.clubId, membership.userId);
+    await endMembership(requestDb(req, ds), membership.clubId, membership.userId);
     res.status(204).end();
   });
 
@@ -95,8 +98,9 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
   router.post('/:clubId/shares', auth, validateBody(createShareSchema), async (req, res) => {
     const membership = await member(req);
     const { itemType, itemId } = validBody(req, createShareSchema);
-    const share = await shareItem(ds, membership.clubId, membership.userId, itemType, itemId);
-    const listed = (await listShares(ds, membership)).find((s) => s.id === share.id);
+    const db = requestDb(req, ds);
+    const share = await shareItem(db, membership.clubId, membership.userId, itemType, itemId);
+    const listed = (await listShares(db, membership)).find((s) => s.id === share.id);
     if (!listed) throw notFound('No such shared item.');
     res.status(201).json(listed);
   });

@@ -3,6 +3,7 @@ import { createCommentSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { requestDb } from '../middleware/request-db.js';
 import { addComment, listComments, visibleShare } from '../services/club-shares.js';
 import { requireClubRole } from '../services/clubs.js';
 import { idParam } from './club-params.js';
@@ -23,8 +24,9 @@ export function commentsRouter({ dataSource: ds, config }: AppDeps): Router {
 
   router.post('/', auth, validateBody(createCommentSchema), async (req, res) => {
     const { membership, share } = await load(req);
-    const comment = await addComment(ds, membership, share, validBody(req, createCommentSchema).body);
-    const listed = (await listComments(ds, share)).find((c) => c.id === comment.id);
+    const db = requestDb(req, ds);
+    const comment = await addComment(db, membership, share, validBody(req, createCommentSchema).body);
+    const listed = (await listComments(db, share)).find((c) => c.id === comment.id);
     res.status(201).json(listed);
   });
 

@@ -4,6 +4,7 @@ import type { AppDeps } from '../deps.js';
 import { notFound } from '../errors.js';
 import { clientAddress } from '../middleware/client-address.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { requestDb } from '../middleware/request-db.js';
 import { User } from '../entities/user.js';
 import { enforceAttemptLimit } from '../services/attempt-limiter.js';
 import { acceptInvite, INVALID_INVITE_MESSAGE, previewInvite } from '../services/invites.js';
@@ -36,7 +37,7 @@ export function invitesRouter({ dataSource: ds, config, logger }: AppDeps): Rout
     // Signed out, accepting may create an account (a bcrypt hash): limited per address before
     // any work. A signed-in keeper's accept hashes nothing and is not counted.
     if (!signedIn) await enforceAttemptLimit({ dataSource: ds, config, logger }, 'invite-accept', { address: clientAddress(req) });
-    const result = await acceptInvite(ds, inviteToken, signedIn, validBody(req, acceptInviteSchema));
+    const result = await acceptInvite(requestDb(req, ds), inviteToken, signedIn, validBody(req, acceptInviteSchema));
     if (result.created) await startUserSession(req, result.userId);
     logger.log('info', 'clubs.invite_accepted', { clubId: result.clubId, userId: result.userId, newAccount: result.created });
     res.status(result.created ? 201 : 200).json({ clubId: result.clubId, role: 'member' });

@@ -4,6 +4,7 @@ import type { AppDeps } from '../deps.js';
 import { forbidden } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { requestDb } from '../middleware/request-db.js';
 import { requireClubRole } from '../services/clubs.js';
 import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail, updateLessonText } from '../services/lessons.js';
 import { Lesson } from '../entities/lesson.js';
@@ -45,7 +46,7 @@ export function clubLessonsRouter({ dataSource: ds, config }: AppDeps): Router {
   const router = Router({ mergeParams: true });
   router.post('/', requireAuth(ds, config), validateBody(createLessonSchema), async (req, res) => {
     const membership = await requireClubRole(ds, currentUser(req).id, idParam(req, 'clubId', 'club'), LESSON_AUTHOR_ROLES);
-    const lesson = await createLesson(ds, membership, validBody(req, createLessonSchema));
+    const lesson = await createLesson(requestDb(req, ds), membership, validBody(req, createLessonSchema));
     res.status(201).json(presentLessonDetail(lesson, membership, currentUser(req).displayName));
   });
   return router;

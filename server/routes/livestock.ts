@@ -6,6 +6,7 @@ import type { Livestock } from '../entities/livestock.js';
 import { notFound } from '../errors.js';
 import { currentUser } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
+import { requestDb } from '../middleware/request-db.js';
 import { presentLivestock } from '../presenters/tank.js';
 import { addLivestock, findOwnLivestock, removeLivestock, updateLivestock } from '../services/livestock.js';
 
@@ -26,7 +27,7 @@ export function livestockRouter({ dataSource: ds }: AppDeps): Router {
   const item = (res: { locals: Record<string, unknown> }) => res.locals.livestock as Livestock;
 
   router.post('/', validateBody(livestockCreateSchema), async (req, res) => {
-    const created = await addLivestock(ds, String(req.params.id), validBody(req, livestockCreateSchema));
+    const created = await addLivestock(requestDb(req, ds), String(req.params.id), validBody(req, livestockCreateSchema));
     res.status(201).json(presentLivestock(created));
   });
 

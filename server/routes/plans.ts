@@ -5,6 +5,7 @@ import type { AppDeps } from '../deps.js';
 import { notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validBody, validateBody } from '../middleware/validate.js';
+import { requestDb } from '../middleware/request-db.js';
 import { presentPlanDetail } from '../presenters/plan.js';
 import { createPlan, deletePlan, findOwnPlan, listOwnPlans, listTankPlans, updatePlan, type OwnPlan } from '../services/plans.js';
 import { findOwnTank } from '../services/tanks.js';
@@ -46,7 +47,7 @@ export function plansRouter({ dataSource: ds, config }: AppDeps): Router {
 
   router.post('/tanks/:tankId/plans', auth, validateBody(planCreateSchema), async (req, res) => {
     const tank = await ownTankParam(ds, req);
-    const plan = await createPlan(ds, tank, validBody(req, planCreateSchema));
+    const plan = await createPlan(requestDb(req, ds), tank, validBody(req, planCreateSchema));
     res.status(201).json(presentPlanDetail({ plan, tank }));
   });
 

@@ -13,6 +13,7 @@ import type { AppDeps } from '../deps.js';
 import { onReadingLogged, onReadingsImported } from '../jobs/alerts.js';
 import { AppError, badRequest, notFound, payloadTooLarge, validationFailed } from '../errors.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
+import { afterCommit, requestDb } from '../middleware/request-db.js';
 import { presentReading } from '../presenters/tank.js';
 import { parseReadingsCsv, readingsToCsv } from '../services/readings-csv.js';
 import { addReading, allReadings, deleteReading, duplicateErrors, importReadings, listReadings } from '../services/readings.js';
@@ -110,8 +111,9 @@ export function readingsRouter(deps: AppDeps): Router {
   });
 
   router.post('/', validateBody(readingCreateSchema), async (req, res) => {
-    const reading = await addReading(ds, tankId(req), validBody(req, readingCreateSchema));
-    await onReadingLogged(deps, reading); // alert check on the job queue (server/jobs/alerts.ts); never throws
+    const reading = await addReading(requestDb(req, ds), tankId(req), validBody(req, readingCreateSchema));
+    // Alert check on the job queue (server/jobs/alerts.ts), once the test is committed; never throws.
+    await afterCommit(req, () => onReadingLogged(deps, reading));
     res.status(201).json(presentReading(reading));
   });
 
@@ -137,12 +139,12 @@ export function readingsRouter(deps: AppDeps): Router {
     if (!checked.canImport) {
       throw new AppError(422, 'import_rejected', 'Nothing was imported: fix the rows named and upload the file again.', rowFields(checked.errors));
     }
-    const result = await importReadings(ds, tankId(req), checked.rows);
+    const result = await importReadings(requestDb(req, ds), tankId(req), checked.rows);
     if (result.duplicates.length > 0) {
       throw new AppError(422, 'import_rejected', 'Nothing was imported: some tests are already logged.', rowFields(result.duplicates));
     }
     // One alert check for the import's recent tests (server/jobs/alerts.ts); never throws.
-    await onReadingsImported(deps, tankId(req), result.imported);
+    await afterCommit(req, () => onReadingsImported(deps, tankId(req), result.imported));
     res.status(201).json({ imported: result.imported.length });
   });
 

@@ -1,11 +1,12 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { createShareLinkSchema, shareableTypeSchema, type ShareLinkItem } from '../../shared/schemas/share.js';
+import { createShareLinkSchema, shareableTypeSchema, type ShareLinkItem, type replayedShareLinkSchema } from '../../shared/schemas/share.js';
 import type { AppDeps } from '../deps.js';
 import { notFound } from '../errors.js';
 import type { ShareLink } from '../entities/share-link.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
+import { requestDb, storeAnswerAs } from '../middleware/request-db.js';
 import { createShareLink, listShareLinks, revokeShareLink, sharedView } from '../services/share-links.js';
 import { idParam } from './club-params.js';
 
@@ -32,7 +33,10 @@ export function shareLinksRouter({ dataSource: ds, config }: AppDeps): Router {
 
   router.post('/', auth, validateBody(createShareLinkSchema), async (req, res) => {
     const user = currentUser(req);
-    const { link, token } = await createShareLink(ds, user.id, validBody(req, createShareLinkSchema));
+    const { link, token } = await createShareLink(requestDb(req, ds), user.id, validBody(req, createShareLinkSchema));
+    // The token goes to this answer only: a replay of the key gets the link without it.
+    const replayed: z.infer<typeof replayedShareLinkSchema> = { ...present(link, user.displayName, user.id), url: null, urlShownOnce: true };
+    storeAnswerAs(req, replayed);
     res.status(201).json({ ...present(link, user.displayName, user.id), url: `${config.appUrl}/s/${token}` });
   });
 

@@ -6,6 +6,7 @@ import { notFound } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { guardedMount } from '../request-log-labels.js';
+import { requestDb } from '../middleware/request-db.js';
 import { presentTankDetail, presentTankSummaryWithStatus } from '../presenters/tank.js';
 import { createOwnTank, deleteOwnTank, findOwnTank, getOwnTank, listOwnTanks, updateOwnTank } from '../services/tanks.js';
 import { livestockRouter } from './livestock.js';
@@ -48,8 +49,9 @@ export function tanksRouter(deps: AppDeps): Router {
 
   router.post('/', auth, validateBody(tankCreateSchema), async (req, res) => {
     const user = currentUser(req);
-    const tank = await createOwnTank(ds, user.id, validBody(req, tankCreateSchema));
-    const rows = await getOwnTank(ds, user.id, tank.id);
+    const db = requestDb(req, ds);
+    const tank = await createOwnTank(db, user.id, validBody(req, tankCreateSchema));
+    const rows = await getOwnTank(db, user.id, tank.id);
     res.status(201).location(`/api/tanks/${tank.id}`).json(presentTankDetail(rows!));
   });
 

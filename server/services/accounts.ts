@@ -1,4 +1,5 @@
-import type { DataSource, EntityManager } from 'typeorm';
+import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { SignUpInput } from '../../shared/schemas/auth.js';
 import { conflict, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -18,7 +19,7 @@ export function assertPasswordNotCommon(password: string, email?: string): void 
 }
 
 /** Inserts a keeper account (site role `user`) with an already made hash; the unique index on e-mail decides races. */
-export async function createAccount(q: DataSource | EntityManager, fields: { email: string; displayName: string; passwordHash: string }): Promise<User> {
+export async function createAccount(q: Db, fields: { email: string; displayName: string; passwordHash: string }): Promise<User> {
   const users = q.getRepository(User);
   try {
     return await users.save(users.create({ ...fields, role: 'user', passwordChangedAt: new Date() }));
@@ -34,7 +35,7 @@ export async function createAccount(q: DataSource | EntityManager, fields: { ema
  * proved the address). The public sign-up goes through server/services/sign-up.ts instead, which
  * does not tell who has an account. The e-mail arrives lower-cased from the schema.
  */
-export async function signUp(ds: DataSource, input: SignUpInput): Promise<User> {
+export async function signUp(ds: Db, input: SignUpInput): Promise<User> {
   assertPasswordNotCommon(input.password, input.email);
   if (await ds.getRepository(User).existsBy({ email: input.email })) throw conflict(EMAIL_TAKEN_MESSAGE, { email: EMAIL_TAKEN_MESSAGE });
   const passwordHash = await hashPassword(input.password);

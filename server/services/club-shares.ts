@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { ClubRole } from '../../shared/schemas/auth.js';
 import type { ClubShare as ClubShareItem, CommentItem, SharedItemType } from '../../shared/schemas/club.js';
 import { conflict, forbidden, notFound } from '../errors.js';
@@ -11,14 +12,14 @@ import { Tank } from '../entities/tank.js';
 const SEES_ALL_SHARES: readonly ClubRole[] = ['organizer', 'mentor'];
 
 /** True when the user owns the tank or the plan (through its tank). */
-async function ownsItem(ds: DataSource, userId: string, itemType: SharedItemType, itemId: string): Promise<boolean> {
+async function ownsItem(ds: Db, userId: string, itemType: SharedItemType, itemId: string): Promise<boolean> {
   if (itemType === 'tank') return ds.getRepository(Tank).existsBy({ id: itemId, ownerId: userId });
   const rows: unknown[] = await ds.query(`SELECT 1 FROM plans p JOIN tanks t ON t.id = p.tank_id WHERE p.id = $1 AND t.owner_id = $2`, [itemId, userId]);
   return rows.length > 0;
 }
 
 /** Shares one of the caller's own tanks or plans with the club; someone else's item is 404. */
-export async function shareItem(ds: DataSource, clubId: string, userId: string, itemType: SharedItemType, itemId: string): Promise<ClubShare> {
+export async function shareItem(ds: Db, clubId: string, userId: string, itemType: SharedItemType, itemId: string): Promise<ClubShare> {
   if (!(await ownsItem(ds, userId, itemType, itemId))) throw notFound(itemType === 'tank' ? 'No such tank.' : 'No such plan.');
   const repo = ds.getRepository(ClubShare);
   if (await repo.existsBy({ clubId, itemType, itemId })) throw conflict('This is already shared with the club.');
@@ -29,14 +30,14 @@ export async function shareItem(ds: DataSource, clubId: string, userId: string, 
  * The share when the caller may see it: its owner always; organizers and mentors of its club.
  * Anyone else — including a plain member looking at another member's item — gets 404.
  */
-export async function visibleShare(ds: DataSource, membership: ClubMembership, shareId: string): Promise<ClubShare> {
+export async function visibleShare(ds: Db, membership: ClubMembership, shareId: string): Promise<ClubShare> {
   const share = await ds.getRepository(ClubShare).findOneBy({ id: shareId, clubId: membership.clubId });
   if (!share || (share.ownerId !== membership.userId && !SEES_ALL_SHARES.includes(membership.role))) throw notFound('No such shared item.');
   return share;
 }
 
 /** Items shared with the club that the caller may see, newest first. */
-export async function listShares(ds: DataSource, membership: ClubMembership): Promise<ClubShareItem[]> {
+export async function listShares(ds: Db, membership: ClubMembership): Promise<ClubShareItem[]> {
   const all = SEES_ALL_SHARES.includes(membership.role);
   const rows: { id: string; item_type: SharedItemType; title: string | null; owner_name: string; owner_id: string; comments: string; created_at: Date }[] =
     await ds.query(
@@ -65,7 +66,7 @@ export async function listShares(ds: DataSource, membership: ClubMembership): Pr
 }
 
 /** The shared tank or plan itself (its tank id for a plan), or 404 when it no longer exists. */
-export async function loadSharedItem(ds: DataSource, share: ClubShare): Promise<{ tankId: string; plan: Plan | null }> {
+export async function loadSharedItem(ds: Db, share: ClubShare): Promise<{ tankId: string; plan: Plan | null }> {
   if (share.itemType === 'tank') {
     if (!(await ds.getRepository(Tank).existsBy({ id: share.itemId }))) throw notFound('No such shared item.');
     return { tankId: share.itemId, plan: null };
@@ -82,7 +83,7 @@ export async function unshare(ds: DataSource, membership: ClubMembership, shareI
   await ds.getRepository(ClubShare).delete({ id: share.id });
 }
 
-export async function listComments(ds: DataSource, share: ClubShare): Promise<CommentItem[]> {
+export async function listComments(ds: Db, share: ClubShare): Promise<CommentItem[]> {
   const rows: { id: string; body: string; created_at: Date; author_name: string; role: ClubRole | null }[] = await ds.query(
     `SELECT c.id, c.body, c.created_at, u.display_name AS author_name, m.role
        FROM plan_comments c JOIN users u ON u.id = c.author_id
@@ -94,7 +95,7 @@ export async function listComments(ds: DataSource, share: ClubShare): Promise<Co
 }
 
 /** Mentors and organizers comment on shared plans (tanks are shown, not discussed). */
-export async function addComment(ds: DataSource, membership: ClubMembership, share: ClubShare, body: string): Promise<PlanComment> {
+export async function addComment(ds: Db, membership: ClubMembership, share: ClubShare, body: string): Promise<PlanComment> {
   if (!SEES_ALL_SHARES.includes(membership.role)) throw forbidden('Mentors and organizers comment on shared plans.');
   if (share.itemType !== 'plan') throw conflict('Comments are for shared plans.');
   const repo = ds.getRepository(PlanComment);

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { ClubRole } from '../../shared/schemas/auth.js';
 import { conflict, forbidden, notFound } from '../errors.js';
 import { Club } from '../entities/club.js';
@@ -22,7 +23,7 @@ export async function requireClubRole(
 }
 
 /** All memberships of a club with their users, organizers first. */
-export async function listClubMembers(ds: DataSource, clubId: string): Promise<ClubMembership[]> {
+export async function listClubMembers(ds: Db, clubId: string): Promise<ClubMembership[]> {
   const members = await ds.getRepository(ClubMembership).find({ where: { clubId }, relations: { user: true } });
   const rank: Record<ClubRole, number> = { organizer: 0, mentor: 1, member: 2 };
   return members.sort((a, b) => rank[a.role] - rank[b.role] || (a.user?.displayName ?? '').localeCompare(b.user?.displayName ?? ''));
@@ -33,7 +34,7 @@ export async function listClubMembers(ds: DataSource, clubId: string): Promise<C
 const LAST_ORGANIZER_MESSAGE = 'A club needs an organizer: make someone else organizer first, or stay.';
 
 /** Creates a club with the caller as its organizer. */
-export async function createClub(ds: DataSource, userId: string, name: string): Promise<ClubMembership> {
+export async function createClub(ds: Db, userId: string, name: string): Promise<ClubMembership> {
   return ds.transaction(async (tx) => {
     const club = await tx.getRepository(Club).save(tx.getRepository(Club).create({ name }));
     await tx.getRepository(ClubMembership).insert({ clubId: club.id, userId, role: 'organizer' });
@@ -65,7 +66,7 @@ export async function setMemberRole(ds: DataSource, clubId: string, targetUserId
  * Ends a membership (removed by an organizer, or leaving). The last organizer cannot go. The
  * member's items shared with the club stop being shared.
  */
-export async function endMembership(ds: DataSource, clubId: string, userId: string): Promise<void> {
+export async function endMembership(ds: Db, clubId: string, userId: string): Promise<void> {
   await ds.transaction(async (tx) => {
     // Lock the club's memberships so two organizers cannot both leave at once.
     const all = await tx.getRepository(ClubMembership).createQueryBuilder('m').setLock('pessimistic_write').where('m.club_id = :clubId', { clubId }).getMany();

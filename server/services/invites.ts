@@ -9,7 +9,7 @@ import type { Mailer } from '../mail/mailer.js';
 import { clubInviteMail } from '../mail/templates/club-invite.js';
 import { signUp } from './accounts.js';
 import { newLinkToken, sha256Hex } from './secret-tokens.js';
-import { returnedRows } from '../data-source.js';
+import { returnedRows, type Db } from '../data-source.js';
 import { enforceInviteQuota } from './invite-quota.js';
 
 export const INVITE_VALID_DAYS = 7;
@@ -17,7 +17,7 @@ export const INVALID_INVITE_MESSAGE = 'This invite link is not valid, was used a
 
 /** Creates an invite and e-mails its single-use link; returns the invite row. */
 export async function createInvite(
-  ds: DataSource,
+  ds: Db,
   mailer: Mailer,
   appUrl: string,
   input: { clubId: string; clubName: string; inviter: User; email: string },
@@ -53,7 +53,7 @@ export async function createInvite(
 /** An invite still waiting for an answer: not accepted, not revoked, not expired (the same rule as `liveInvite`). */
 const PENDING_SQL = 'used_at IS NULL AND revoked_at IS NULL AND expires_at > now()';
 
-async function liveInvite(ds: DataSource, token: string): Promise<ClubInvite | null> {
+async function liveInvite(ds: Db, token: string): Promise<ClubInvite | null> {
   const invite = await ds.getRepository(ClubInvite).findOneBy({ tokenHash: sha256Hex(token) });
   if (!invite || invite.usedAt || invite.revokedAt || invite.expiresAt.getTime() <= Date.now()) return null;
   return invite;
@@ -115,7 +115,7 @@ export async function previewInvite(ds: DataSource, token: string): Promise<Invi
  * UPDATE, so it works once even when two requests race. Returns the joining user's id.
  */
 export async function acceptInvite(
-  ds: DataSource,
+  ds: Db,
   token: string,
   signedInUserId: string | null,
   newAccount: { displayName?: string; password?: string },

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { ClubRole } from '../../shared/schemas/auth.js';
 import type { z } from 'zod';
 import type { LessonDetail, LessonSummary, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
@@ -24,7 +25,7 @@ export interface LessonInput {
 }
 
 /** A shared plan (visible to the mentor) as a scenario; 404 when it is not visible. */
-async function scenarioFromShare(ds: DataSource, membership: ClubMembership, shareId: string): Promise<Scenario> {
+async function scenarioFromShare(ds: Db, membership: ClubMembership, shareId: string): Promise<Scenario> {
   const share = await visibleShare(ds, membership, shareId);
   const { tankId, plan } = await loadSharedItem(ds, share);
   if (!plan) throw notFound('Start a lesson from a shared plan, not a tank.');
@@ -36,7 +37,7 @@ async function scenarioFromShare(ds: DataSource, membership: ClubMembership, sha
 }
 
 /** Mentors and organizers create lessons in their club. */
-export async function createLesson(ds: DataSource, membership: ClubMembership, input: LessonInput): Promise<Lesson> {
+export async function createLesson(ds: Db, membership: ClubMembership, input: LessonInput): Promise<Lesson> {
   if (!LESSON_AUTHOR_ROLES.includes(membership.role)) throw forbidden('Mentors and organizers build lessons.');
   const scenario = input.scenario ?? (await scenarioFromShare(ds, membership, input.fromShareId!));
   const repo = ds.getRepository(Lesson);
@@ -69,7 +70,7 @@ export async function listLessons(ds: DataSource, userId: string): Promise<Lesso
 }
 
 /** A lesson and the caller's membership of its club; 404 outside the club. */
-export async function loadLesson(ds: DataSource, userId: string, lessonId: string): Promise<{ lesson: Lesson; membership: ClubMembership }> {
+export async function loadLesson(ds: Db, userId: string, lessonId: string): Promise<{ lesson: Lesson; membership: ClubMembership }> {
   const lesson = await ds.getRepository(Lesson).findOneBy({ id: lessonId });
   const membership = lesson ? await ds.getRepository(ClubMembership).findOne({ where: { clubId: lesson.clubId, userId }, relations: { club: true } }) : null;
   if (!lesson || !membership) throw notFound('No such lesson.');

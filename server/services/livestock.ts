@@ -1,11 +1,12 @@
 import type { DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { LivestockCreateInput, LivestockPatchInput } from '../../shared/schemas/tank.js';
 import { findSpecies } from '../../simulation/catalogue.js';
 import { Livestock } from '../entities/livestock.js';
 import { validationFailed } from '../errors.js';
 
 /** Adds animals to a tank the caller has already checked they own. */
-export async function addLivestock(ds: DataSource, tankId: string, input: LivestockCreateInput): Promise<Livestock> {
+export async function addLivestock(ds: Db, tankId: string, input: LivestockCreateInput): Promise<Livestock> {
   if (input.speciesId !== undefined && !findSpecies(input.speciesId)) {
     throw validationFailed({ speciesId: 'This species is not in the catalogue. Choose one from the list, or add a custom fish.' });
   }

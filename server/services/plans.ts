@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { independentQueries, type Db } from '../data-source.js';
 import { parseScenario, ScenarioError, type ScenarioEvent } from '../../shared/schemas/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
 import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
@@ -63,12 +64,13 @@ export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasR
   };
 }
 
-export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<ScenarioTank> {
-  const [livestock, hasReadings] = await Promise.all([
-    ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
+export async function scenarioTankOf(ds: Db, tank: Tank): Promise<ScenarioTank> {
+  const [livestock, hasReadings] = await independentQueries(
+    ds,
+    () => ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
     // Not a count: a tank's log grows for years, and only "any at all" matters here.
-    ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
-  ]);
+    () => ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
+  );
   return toScenarioTank(tank, livestock, hasReadings);
 }
 
@@ -77,7 +79,7 @@ export async function scenarioTankOf(ds: DataSource, tank: Tank): Promise<Scenar
  * the event field. Problems of the tank itself (a custom fish without a length) do not stop a
  * plan being saved; its forecast reports them.
  */
-export async function checkEventsFitTank(ds: DataSource, tank: Tank, events: ScenarioEvent[]): Promise<void> {
+export async function checkEventsFitTank(ds: Db, tank: Tank, events: ScenarioEvent[]): Promise<void> {
   try {
     parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }).scenario);
   } catch (e) {
@@ -94,7 +96,7 @@ export interface PlanFields {
   events: ScenarioEvent[];
 }
 
-export async function createPlan(ds: DataSource, tank: Tank, fields: PlanFields): Promise<Plan> {
+export async function createPlan(ds: Db, tank: Tank, fields: PlanFields): Promise<Plan> {
   await checkEventsFitTank(ds, tank, fields.events);
   const repo = ds.getRepository(Plan);
   return repo.save(repo.create({ tankId: tank.id, ...fields }));

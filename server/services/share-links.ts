@@ -1,4 +1,5 @@
 import { In, type DataSource } from 'typeorm';
+import type { Db } from '../data-source.js';
 import type { ShareableType, SharedView } from '../../shared/schemas/share.js';
 import { notFound } from '../errors.js';
 import { Lesson } from '../entities/lesson.js';
@@ -19,7 +20,7 @@ const NO_SUCH_LINK = 'This link does not work: it was revoked, has expired, or i
  * mentor author or an organizer of its club). Asked on every view too, so a link stops working
  * when its maker loses that right (left the club, no longer a mentor, the plan moved).
  */
-async function mayShare(ds: DataSource, userId: string, itemType: ShareableType, itemId: string): Promise<boolean> {
+async function mayShare(ds: Db, userId: string, itemType: ShareableType, itemId: string): Promise<boolean> {
   if (itemType === 'plan') {
     const rows: unknown[] = await ds.query(`SELECT 1 FROM plans p JOIN tanks t ON t.id = p.tank_id WHERE p.id = $1 AND t.owner_id = $2`, [itemId, userId]);
     return rows.length > 0;
@@ -30,13 +31,13 @@ async function mayShare(ds: DataSource, userId: string, itemType: ShareableType,
 }
 
 /** 404 unless the user may share the item. */
-export async function assertMayShare(ds: DataSource, userId: string, itemType: ShareableType, itemId: string): Promise<void> {
+export async function assertMayShare(ds: Db, userId: string, itemType: ShareableType, itemId: string): Promise<void> {
   if (!(await mayShare(ds, userId, itemType, itemId))) throw notFound(itemType === 'plan' ? 'No such plan.' : 'No such lesson.');
 }
 
 /** Creates a link that works for `expiresInDays` (default 30); returns the row and the token (shown once, never stored). */
 export async function createShareLink(
-  ds: DataSource,
+  ds: Db,
   userId: string,
   input: { itemType: ShareableType; itemId: string; expiresInDays: number },
 ): Promise<{ link: ShareLink; token: string }> {

@@ -1,4 +1,5 @@
 import type { DataSource } from 'typeorm';
+import { independentQueries, type Db } from '../data-source.js';
 import { TANK_DEFAULTS, TANK_DETAIL_READING_LIMIT, defaultSetup, type TankCreateInput, type TankPatchInput } from '../../shared/schemas/tank.js';
 import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
@@ -63,19 +64,20 @@ export async function listOwnTanks(ds: DataSource, ownerId: string): Promise<Tan
 }
 
 /** The tank with its livestock, newest readings and plans — only when `ownerId` owns it. */
-export async function getOwnTank(ds: DataSource, ownerId: string, tankId: string): Promise<TankDetailRows | null> {
+export async function getOwnTank(ds: Db, ownerId: string, tankId: string): Promise<TankDetailRows | null> {
   const tank = await ds.getRepository(Tank).findOneBy({ id: tankId, ownerId });
   if (!tank) return null;
-  const [livestock, readings, plans] = await Promise.all([
-    ds.getRepository(Livestock).find({ where: { tankId }, order: { createdAt: 'ASC' } }),
-    ds.getRepository(Reading).find({ where: { tankId }, order: { takenAt: 'DESC' }, take: TANK_DETAIL_READING_LIMIT }),
-    ds.getRepository(Plan).find({ where: { tankId }, order: { startDate: 'DESC', createdAt: 'DESC' } }),
-  ]);
+  const [livestock, readings, plans] = await independentQueries(
+    ds,
+    () => ds.getRepository(Livestock).find({ where: { tankId }, order: { createdAt: 'ASC' } }),
+    () => ds.getRepository(Reading).find({ where: { tankId }, order: { takenAt: 'DESC' }, take: TANK_DETAIL_READING_LIMIT }),
+    () => ds.getRepository(Plan).find({ where: { tankId }, order: { startDate: 'DESC', createdAt: 'DESC' } }),
+  );
   return { tank, livestock, readings, plans };
 }
 
 /** Creates a tank for `ownerId`; anything not given takes the newcomer defaults (TANK_DEFAULTS). */
-export async function createOwnTank(ds: DataSource, ownerId: string, input: TankCreateInput): Promise<Tank> {
+export async function createOwnTank(ds: Db, ownerId: string, input: TankCreateInput): Promise<Tank> {
   const repo = ds.getRepository(Tank);
   return repo.save(
     repo.create({

@@ -41,6 +41,11 @@ export const shareLinkSchema = z.object({
 });
 export type ShareLinkItem = z.infer<typeof shareLinkSchema>;
 export const createdShareLinkSchema = shareLinkSchema.extend({ url: z.string() });
+/**
+ * A retry of a keyed create (same Idempotency-Key) gets the link it made without its address:
+ * the token is shown in the first answer only and never stored. Revoke it by id and create another.
+ */
+export const replayedShareLinkSchema = shareLinkSchema.extend({ url: z.null(), urlShownOnce: z.literal(true) });
 export const shareLinkListSchema = z.object({ links: z.array(shareLinkSchema) });
 
 /** GET /api/share/:token — a read-only view without an account: content only, no ids or e-mail. */

@@ -63,12 +63,19 @@ export async function createLivestock(ds: DataSource, tankId: string, overrides:
   return repo.save(repo.create({ tankId, speciesId: 'neon-tetra', customName: null, count: 10, lengthCm: 3, ...overrides }));
 }
 
+/**
+ * "Now", a millisecond later than the last default it gave: a tank holds one test per moment
+ * (unique index), and two quick creates can fall in the same millisecond.
+ */
+let lastDefaultTime = 0;
+const distinctNow = () => new Date((lastDefaultTime = Math.max(Date.now(), lastDefaultTime + 1)));
+
 export async function createReading(ds: DataSource, tankId: string, overrides: Partial<Reading> = {}): Promise<Reading> {
   const repo = ds.getRepository(Reading);
   return repo.save(
     repo.create({
       tankId,
-      takenAt: new Date(),
+      takenAt: distinctNow(),
       tanMgN: 0.1,
       no2MgN: 0,
       no3MgN: 5,

@@ -55,6 +55,7 @@ function databaseUrl(): string {
 export function useTestApp(options: { env?: Record<string, string>; extraApiRoutes?: Router } = {}): TestContext {
   const ctx = {} as TestContext;
   const extraDeps: AppDeps[] = [];
+  const extraApps: TestApp[] = [];
 
   beforeAll(async () => {
     ctx.mail = await startMailFake({ host: '127.0.0.1' });
@@ -93,7 +94,9 @@ export function useTestApp(options: { env?: Record<string, string>; extraApiRout
       deps.dataSource = ctx.deps.dataSource;
       deps.extraApiRoutes = extraApiRoutes;
       extraDeps.push(deps);
-      return createApp(deps);
+      const app = createApp(deps);
+      extraApps.push(app);
+      return app;
     };
   });
 
@@ -109,6 +112,7 @@ export function useTestApp(options: { env?: Record<string, string>; extraApiRout
       await deps.sessionPool.end();
       deps.mailer.close();
     }
+    for (const app of [ctx.app, ...extraApps]) await app?.idempotency.close();
     ctx.app?.sessionStore.close();
     await ctx.deps?.sessionPool.end();
     await ctx.deps?.dataSource.destroy();

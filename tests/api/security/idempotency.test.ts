@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import { Reading } from '../../../server/entities/reading.js';
 import { currentUser, requireAuth } from '../../../server/middleware/require-auth.js';
 import { REPLAYED_HEADER } from '../../../server/middleware/idempotency.js';
+import { requestDb } from '../../../server/middleware/request-db.js';
 import { Tank } from '../../../server/entities/tank.js';
 import { notFound } from '../../../server/errors.js';
 import { GOOD_PASSWORD, createTank, createUser } from '../helpers/factories.js';
@@ -17,14 +18,15 @@ function probeRoutes(getCtx: () => TestContext): Router {
   router.post('/probe/tanks/:id/readings', express.json(), (req, res, next) =>
     requireAuth(getCtx().deps.dataSource, getCtx().deps.config)(req, res, next),
   async (req, res) => {
-    const ds = getCtx().deps.dataSource;
+    // Written the way every keyed route writes: through the key's transaction.
+    const ds = requestDb(req, getCtx().deps.dataSource);
     const tank = await ds.getRepository(Tank).findOneBy({ id: req.params.id as string, ownerId: currentUser(req).id });
     if (!tank) throw notFound();
     const body = req.body as { tanMgN?: unknown; delayMs?: number };
     if (typeof body.tanMgN !== 'number') return void res.status(400).json({ error: { code: 'validation', message: 'tanMgN' } });
     if (body.delayMs) await sleep(body.delayMs);
     const saved = await ds.getRepository(Reading).save(
-      ds.getRepository(Reading).create({ tankId: tank.id, takenAt: new Date(), tanMgN: body.tanMgN, basis: 'N' }),
+      ds.getRepository(Reading).create({ tankId: tank.id, takenAt: new Date(Date.now() + Math.random() * 1e6), tanMgN: body.tanMgN, basis: 'N' }),
     );
     res.status(201).json({ id: saved.id, tanMgN: saved.tanMgN });
   });
