@@ -5,6 +5,7 @@ import { consoleLogger } from './logger.js';
 import { buildDeps } from './runtime.js';
 import { describeTrustProxy } from './security/trust-proxy.js';
 import { startJobs, type JobRunner } from './jobs/runner.js';
+import { isLostJobCompletion } from './jobs/lost-completion.js';
 import { startEnginePool } from './workers/engine-pool.js';
 
 /** Longest wait for in-flight requests at shutdown before giving up. */
@@ -19,6 +20,16 @@ async function main(): Promise<void> {
   // Whose X-Forwarded-For decides the address every limit counts.
   logger.log('info', 'boot.trust_proxy', { trustProxy: config.trustProxy, meaning: describeTrustProxy(config.trustProxy) });
   if (config.trustProxy === true) logger.log('warn', 'config.trust_proxy_any', { note: 'TRUST_PROXY=true: any client can choose its address (refused in production)' });
+  // A job whose end pg-boss could not record while the database was down runs again later;
+  // anything else unhandled stays fatal (a restart is safer than an unknown state).
+  process.on('unhandledRejection', (reason) => {
+    if (isLostJobCompletion(reason)) {
+      logger.log('warn', 'jobs.completion_lost', { error: String(reason) });
+      return;
+    }
+    logger.log('error', 'process.unhandled_rejection', { error: String(reason) });
+    process.exit(1);
+  });
   const deps = buildDeps(config, logger);
   await deps.dataSource.initialize();
   if (await deps.dataSource.showMigrations()) {
