@@ -4,7 +4,7 @@
  * 60-day forecast ≤ 100 ms; calibration on 30 readings ≤ 1 s.
  * Run: npm run bench:advice
  */
-import { parseScenario } from '../shared/schemas/scenario';
+import { parseScenario } from '../simulation/scenario';
 import { fastestSafeSchedule } from '../simulation/advice/addition-schedule';
 import { calibrate, scaledScenario } from '../simulation/advice/calibration';
 import { runEnsemble } from '../simulation/advice/ensemble';

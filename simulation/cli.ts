@@ -3,7 +3,7 @@
  * Prints the forecast as JSON (or the series as CSV). The only I/O of simulation/ lives here.
  */
 import { readFileSync } from 'node:fs';
-import { ScenarioError } from '../shared/schemas/scenario';
+import { ScenarioError } from './scenario';
 import { forecast, type Forecast } from './forecast';
 import { SolverError } from './solver';
 
@@ -19,7 +19,7 @@ Options:
   --help             this text
 
 Scenario format (JSON; concentrations in mg/L as N; days from 0; see
-shared/schemas/scenario.ts for every field, default and limit):
+simulation/scenario.ts for every field, default and limit):
   tank:     volumeL, temperatureC, ph, khDegrees?, phModel? ("fixed" | "carbonate"),
             tapWater? {tanMgN, no2MgN, no3MgN, khDegrees?}, aeration?, lightHoursPerDay?,
             plants? ("none"|"light"|"moderate"|"heavy"), chlorideMgL?,

@@ -11,7 +11,7 @@
  * state remembers which scenario prefix (tank, start, fish, feeding, events before d,
  * parameters, feeding multiplier) produced it, and a mismatch is refused.
  */
-import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '../shared/schemas/scenario';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from './scenario';
 import { feedNitrogenFlows, type FeedFlows, type Feeding } from './bioload';
 import { carbonateCo2, epaAcuteTan, epaChronicTan } from './chemistry';
 import { defaultLimits, type LimitChoices, type TankLimits } from './limits';

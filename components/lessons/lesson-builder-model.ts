@@ -8,7 +8,7 @@
 import { fieldErrors } from '@/shared/api-error';
 import { createLessonSchema, LESSON_MAX_STEPS, type CreateLessonInput, type LessonKind } from '@/shared/schemas/lesson';
 import type { UnitPreferences } from '@/shared/schemas/preferences';
-import type { ScenarioEvent, ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioEvent, ScenarioInput } from '@/simulation/scenario';
 import { defaultSetup, TANK_DEFAULTS } from '@/shared/schemas/tank';
 import { defaultHorizonDays } from '@/shared/tank-scenario';
 import { findSpecies } from '@/simulation/catalogue';

@@ -3,7 +3,7 @@
  * called, the text fields its form shows, turning typed text into an event (validated with the
  * engine's `eventSchema`, errors by field) and describing an event in a sentence.
  */
-import { eventSchema, type ScenarioEvent } from '@/shared/schemas/scenario';
+import { eventSchema, type ScenarioEvent } from '@/simulation/scenario';
 import { fieldErrors } from '@/shared/api-error';
 import { findSpecies } from '@/simulation/catalogue';
 import { parseDecimal } from '@/lib/units-format';

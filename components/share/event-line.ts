@@ -1,4 +1,4 @@
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 
 const fishName = (f: { species?: string; name?: string }) => f.name ?? (f.species ? (findSpecies(f.species)?.commonName ?? f.species) : 'fish');

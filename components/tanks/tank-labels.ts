@@ -1,5 +1,5 @@
 import { TANK_DEFAULTS, type LimitLevel, type LivestockItem, type NextTest, type PlanEvent, type PlanStatus, type TankSetup } from '@/shared/schemas/tank';
-import type { AerationLevel, MediaType } from '@/shared/schemas/scenario';
+import type { AerationLevel, MediaType } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 import type { StatusTone } from '@/constants/theme';
 

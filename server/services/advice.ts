@@ -9,7 +9,7 @@ import type {
   removalAdviceBodySchema,
   rescueAdviceBodySchema,
 } from '../../shared/schemas/plan.js';
-import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../shared/schemas/scenario.js';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../simulation/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
 import {
   additionResponseSchema,

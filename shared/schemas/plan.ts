@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { eventSchema, fishGroupSchema, startSchema } from './scenario';
+import { eventSchema, fishGroupSchema, startSchema } from '../../simulation/scenario';
 import { planStatusSchema } from './tank';
 import {
   additionRequestSchema,

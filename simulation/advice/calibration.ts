@@ -19,7 +19,7 @@
  */
 import { levenbergMarquardt } from 'ml-levenberg-marquardt';
 import { inv } from 'mathjs';
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
 import { MOLAR_MASS } from '../units';

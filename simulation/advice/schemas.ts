@@ -3,7 +3,7 @@
  * server code here: the server imports these. Concentrations mg N/L, days from day 0.
  */
 import { z } from 'zod';
-import { fishGroupSchema, scenarioSchema } from '../../shared/schemas/scenario';
+import { fishGroupSchema, scenarioSchema } from '../scenario';
 import { LIMIT_KEYS } from './tank-limits';
 
 const limitKey = z.enum(LIMIT_KEYS);

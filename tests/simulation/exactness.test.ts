@@ -6,7 +6,7 @@ import { AERATION_OXYGEN_SHARE } from '@/simulation/presets';
 import { createMathjsIntegrator } from '@/simulation/reference-solver';
 import { DEFAULT_PARAMETERS } from '@/simulation/parameters';
 import { SolverError } from '@/simulation/solver';
-import type { ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioInput } from '@/simulation/scenario';
 import { expectClose } from './helpers';
 import { matureWithPlaties, tank } from './scenarios';
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { addDays, planCheckDays } from '@/shared/plan-check-days';
 import { applySchedule, sortEvents } from '@/lib/draft-store';
 import { blankFields, describeEvent, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 
 const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: { species: 'neon-tetra', count, lengthCm: 3 } });
 const wc = (day: number): ScenarioEvent => ({ type: 'water-change', day, percent: 25 });

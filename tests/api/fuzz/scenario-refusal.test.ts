@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ScenarioError } from '../../../shared/schemas/scenario.js';
+import { ScenarioError } from '../../../simulation/scenario.js';
 import { forecast } from '../../../simulation/forecast.js';
 import { FUZZ_SEED, caseCounter } from './seed.js';
 

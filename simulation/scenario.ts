@@ -1,9 +1,9 @@
 import { z } from 'zod';
-import { fieldErrors } from '../api-error';
+import { fieldErrors } from '../shared/api-error';
 
 /**
- * The scenario format: one tank, how it starts, and a timeline of events. Single source of
- * truth for the forecast engine (simulation/), the API server and the app. Concentrations are
+ * The scenario format: one tank, how it starts, and a timeline of events: the engine's input,
+ * one source of truth for the engine, the API server and the app. Concentrations are
  * "as N" (mg N/L); days count from the forecast start (day 0).
  */
 
