@@ -14,10 +14,11 @@ import { tankScenario } from '../../shared/tank-scenario.js';
 import {
   additionResponseSchema,
   calibrationResponseSchema,
+  capacityTestResponseSchema,
+  ensembleResponseSchema,
   removalResponseSchema,
   rescueResponseSchema,
 } from '../../simulation/advice/schemas.js';
-import { capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import type { Tank } from '../entities/tank.js';

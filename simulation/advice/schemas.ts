@@ -223,5 +223,18 @@ export const capacityTestProtocolSchema = z.object({
   cautions: z.array(z.string()).min(1),
 });
 
+/** The ensemble band of a scenario with its words (server/workers/engine-tasks.ts builds it from runEnsemble). */
+export const ensembleResponseSchema = z.object({
+  band: ensembleBandSchema,
+  members: z.number().int(),
+  failed: z.number().int(),
+  ...words,
+});
+/** A capacity test's protocol and, once its readings are given, the capacity they show. */
+export const capacityTestResponseSchema = z.object({
+  protocol: capacityTestProtocolSchema,
+  estimate: calibrationResponseSchema.nullable(),
+});
+
 export type AdditionRequestInput = z.input<typeof additionRequestSchema>;
 export type CalibrationRequestInput = z.input<typeof calibrationRequestSchema>;
