@@ -6,7 +6,7 @@
  */
 import { parseScenario } from '../simulation/scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../simulation/forecast';
-import { createMathjsIntegrator } from '../simulation/reference-solver';
+import { createMathjsIntegrator } from '../tests/simulation/reference-solver';
 import { BENCH_SCENARIO } from './scenarios';
 
 const scenario = parseScenario(BENCH_SCENARIO);

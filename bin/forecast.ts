@@ -1,11 +1,12 @@
 /**
  * Command line: `npm run forecast -- scenario.json [--horizon 60] [--step 1] [--csv] [--before]`.
- * Prints the forecast as JSON (or the series as CSV). The only I/O of simulation/ lives here.
+ * Prints the forecast as JSON (or the series as CSV). The engine (simulation/) does no I/O;
+ * reading the file and printing are this command's.
  */
 import { readFileSync } from 'node:fs';
-import { ScenarioError } from './scenario';
-import { forecast, type Forecast } from './forecast';
-import { SolverError } from './solver';
+import { ScenarioError } from '../simulation/scenario';
+import { forecast, type Forecast } from '../simulation/forecast';
+import { SolverError } from '../simulation/solver';
 
 const HELP = `Shoalshift forecast — nitrogen cycle of one tank over a timeline of events.
 

@@ -1,7 +1,7 @@
 /**
  * Reference integrator on mathjs `solveODE` (Dormand–Prince RK45), for tests and the
- * benchmark only — the engine uses odex (solver.ts). Not imported by forecast.ts, so mathjs
- * stays out of the engine's bundle.
+ * benchmark only — the engine uses odex (simulation/solver.ts). Lives outside simulation/, so
+ * the ODE solver of mathjs never reaches the engine or its bundle.
  *
  * mathjs has only an absolute tolerance on the max-norm of the error. To make it relative,
  * each sample interval is integrated in scaled variables z_i = y_i / w_i with
@@ -9,7 +9,7 @@
  */
 import { solveODE } from 'mathjs';
 import type { Derivative } from 'odex';
-import { SolverError, type IntegrationStats, type SegmentIntegrator, type Tolerances } from './solver';
+import { SolverError, type IntegrationStats, type SegmentIntegrator, type Tolerances } from '../../simulation/solver';
 
 export interface MathjsOptions {
   /** mathjs tolerance in scaled units (relative error per step); default tolerances.relative. */
