@@ -23,12 +23,19 @@ function sourceFiles(dir: string): string[] {
   });
 }
 
+/** Files of the repo's code folders, by path relative to the repo. */
+function repoFiles(folders: string[]): Map<string, string> {
+  const out = new Map<string, string>();
+  for (const folder of folders) for (const path of sourceFiles(join(root, folder))) out.set(relative(root, path).split(sep).join('/'), readFileSync(path, 'utf8'));
+  return out;
+}
+
 function specifiers(source: string): string[] {
   return ts.preProcessFile(source, true, true).importedFiles.map((f) => f.fileName);
 }
 
 /** Why one import of an engine file (path relative to the repo) breaks the layering, or null. */
-export function engineImportProblem(file: string, specifier: string): string | null {
+function engineImportProblem(file: string, specifier: string): string | null {
   if (specifier.startsWith('.')) {
     const target = relative(root, resolve(root, dirname(file), specifier)).split(sep).join('/');
     return target === ENGINE || target.startsWith(`${ENGINE}/`) ? null : `${file} imports ${specifier} (${target}), outside ${ENGINE}/`;
@@ -68,5 +75,66 @@ describe('the engine at the bottom', () => {
     expect(engineProblems(bad.map((source) => ({ file: 'simulation/advice/x.ts', source })))).toHaveLength(bad.length);
     const good = ["import { z } from 'zod';", "import type { Scenario } from '../scenario';", "import { Solver } from 'odex';", "export * from './session';"];
     expect(engineProblems(good.map((source) => ({ file: 'simulation/advice/x.ts', source })))).toEqual([]);
+  });
+});
+
+/** The repo file an import names (relative or `@/`, with or without `.js`), or null for a package. */
+function resolveImport(files: Map<string, string>, file: string, specifier: string): string | null {
+  let target: string;
+  if (specifier.startsWith('@/')) target = specifier.slice(2);
+  else if (specifier.startsWith('.')) target = relative(root, resolve(root, dirname(file), specifier)).split(sep).join('/');
+  else return null;
+  target = target.replace(/\.js$/, '');
+  return [`${target}.ts`, `${target}.tsx`, `${target}/index.ts`, `${target}/index.tsx`, target].find((c) => files.has(c)) ?? null;
+}
+
+/** Import cycles (type-only imports included), each as the files of one strongly connected group. */
+function importCycles(files: Map<string, string>): string[][] {
+  const edges = new Map([...files].map(([file, source]) => [file, specifiers(source).map((s) => resolveImport(files, file, s)).filter((t): t is string => t !== null)]));
+  // Tarjan's strongly connected components.
+  let counter = 0;
+  const index = new Map<string, number>();
+  const low = new Map<string, number>();
+  const stack: string[] = [];
+  const onStack = new Set<string>();
+  const groups: string[][] = [];
+  const visit = (v: string) => {
+    index.set(v, counter);
+    low.set(v, counter++);
+    stack.push(v);
+    onStack.add(v);
+    for (const w of edges.get(v) ?? []) {
+      if (!index.has(w)) {
+        visit(w);
+        low.set(v, Math.min(low.get(v)!, low.get(w)!));
+      } else if (onStack.has(w)) low.set(v, Math.min(low.get(v)!, index.get(w)!));
+    }
+    if (low.get(v) === index.get(v)) {
+      const group: string[] = [];
+      let w: string;
+      do {
+        w = stack.pop()!;
+        onStack.delete(w);
+        group.push(w);
+      } while (w !== v);
+      if (group.length > 1 || edges.get(v)!.includes(v)) groups.push(group.sort());
+    }
+  };
+  for (const v of edges.keys()) if (!index.has(v)) visit(v);
+  return groups;
+}
+
+describe('no import cycles', () => {
+  it('no file of the app, the server, shared/ or the engine reaches itself through its imports', () => {
+    expect(importCycles(repoFiles(['simulation', 'shared', 'server', 'components', 'lib', 'hooks', 'app', 'bin']))).toEqual([]);
+  });
+
+  it('finds a cycle made only of type imports', () => {
+    const files = new Map([
+      ['server/deps.ts', "import type { JobQueue } from './jobs/runner.js';"],
+      ['server/jobs/runner.ts', "import type { AppDeps } from '../deps.js';"],
+      ['server/app.ts', "import type { AppDeps } from './deps.js';"],
+    ]);
+    expect(importCycles(files)).toEqual([['server/deps.ts', 'server/jobs/runner.ts']]);
   });
 });
