@@ -170,9 +170,6 @@ export function clearTouched(errors: Readonly<LessonFormErrors>, touched: string
   return Object.keys(next).length === Object.keys(errors).length ? (errors as LessonFormErrors) : next;
 }
 
-/** Form field keys the screen shows messages under. */
-export const TANK_FIELDS = ['tank.volume', 'tank.temperature', 'tank.ph', 'tank.kh', 'tank.waterChangePercent', 'tank.waterChangeEveryDays'] as const;
-
 /** The form field behind a request path (client zod or server 400), or null when none shows it. */
 export function lessonFieldFor(path: string): string | null {
   const direct: Record<string, string> = {

@@ -10,9 +10,6 @@ export const NITROGEN_FIGURES = [
   { key: 'no3MgN', label: 'Nitrate', short: 'Nitrate' },
 ] as const;
 
-/** Concentrations are stored and shown as nitrogen; the unit says so every time. */
-export const NITROGEN_UNIT = 'mg/L as N';
-
 export const planStatusLabel: Record<PlanStatus, { label: string; tone: StatusTone }> = {
   draft: { label: 'Draft', tone: 'info' },
   active: { label: 'In progress', tone: 'ok' },
