@@ -9,7 +9,7 @@ import { User } from '../entities/user.js';
 import { readingAlertMail } from '../mail/templates/reading-alert.js';
 import { scenarioFromPlan } from '../services/scenario-from-plan.js';
 import { freeAmmoniaMgNH3 } from '../../simulation/chemistry.js';
-import { forecastParsed } from '../../simulation/forecast.js';
+import { forecastParsed } from '../../simulation/forecast/index.js';
 import { defaultLimits } from '../../simulation/limits.js';
 import { planDay, type JobDeps } from './reminders.js';
 import { sendOnce } from './send-once.js';

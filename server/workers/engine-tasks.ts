@@ -5,7 +5,7 @@
  */
 import { ScenarioError, parseScenario } from '../../simulation/scenario.js';
 import { forecastView } from '../../shared/forecast-view.js';
-import { forecastParsed } from '../../simulation/forecast.js';
+import { forecastParsed } from '../../simulation/forecast/index.js';
 import {
   calibrate,
   capacityTestProtocol,

@@ -3,7 +3,7 @@ import path from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
 import { ScenarioError } from '../../../simulation/scenario.js';
-import { forecast } from '../../../simulation/forecast.js';
+import { forecast } from '../../../simulation/forecast/index.js';
 import { FUZZ_SEED, caseCounter } from './seed.js';
 
 // Tests run from the repository root (vitest's root).

@@ -11,18 +11,18 @@
  * state remembers which scenario prefix (tank, start, fish, feeding, events before d,
  * parameters, feeding multiplier) produced it, and a mismatch is refused.
  */
-import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from './scenario';
-import { feedNitrogenFlows, type FeedFlows, type Feeding } from './bioload';
-import { carbonateCo2, epaAcuteTan, epaChronicTan } from './chemistry';
-import { defaultLimits, type LimitChoices, type TankLimits } from './limits';
-import { aoIndex, createModel, I_KH, I_NO2, I_NO3, I_ORG, I_PLANT, I_TAN, noIndex, type Model, type SegmentConditions } from './model';
-import { resolveParameters, type ParameterOverrides, type Parameters } from './parameters';
-import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone, type ResolvedZone } from './presets';
-import { createOdexIntegrator, SolverError, type IntegrationStats, type SamplingMode, type SegmentIntegrator } from './solver';
-import { LoadTooHighError, matureSteadyState } from './steady-state';
-import { daysOver, peakOf, type Excursion, type Peak } from './series-stats';
-import { buildTimeline, doseMgNPerL, type Breakpoint } from './timeline';
-import { MOLAR_MASS } from './units';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '../scenario';
+import { feedNitrogenFlows, type FeedFlows, type Feeding } from '../bioload';
+import { carbonateCo2, epaAcuteTan, epaChronicTan } from '../chemistry';
+import { defaultLimits, type LimitChoices, type TankLimits } from '../limits';
+import { aoIndex, createModel, I_KH, I_NO2, I_NO3, I_ORG, I_PLANT, I_TAN, noIndex, type Model, type SegmentConditions } from '../model';
+import { resolveParameters, type ParameterOverrides, type Parameters } from '../parameters';
+import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone, type ResolvedZone } from '../presets';
+import { createOdexIntegrator, SolverError, type IntegrationStats, type SamplingMode, type SegmentIntegrator } from '../solver';
+import { LoadTooHighError, matureSteadyState } from '../steady-state';
+import { daysOver, peakOf, type Excursion, type Peak } from '../series-stats';
+import { buildTimeline, doseMgNPerL, type Breakpoint } from '../timeline';
+import { MOLAR_MASS } from '../units';
 
 export interface ForecastOptions {
   /** Output interval, days (default 1). */
