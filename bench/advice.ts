@@ -8,7 +8,7 @@
  * Run: npm run bench:advice   (env: BENCH_ADVICE_DB_PORT=54372 BENCH_ADVICE_PORT=3172; BENCH_ADVICE_API=off skips the API part)
  */
 import { CSRF, DEMO_MEMBER, VIA_TLS_PROXY, freshDatabase, getJson, signIn, startCluster, startServer, stopCluster } from './harness.js';
-import { parseScenario } from '../shared/schemas/scenario';
+import { parseScenario } from '../simulation/scenario';
 import { fastestSafeSchedule } from '../simulation/advice/addition-schedule';
 import { calibrate, scaledScenario } from '../simulation/advice/calibration';
 import { runEnsemble } from '../simulation/advice/ensemble';

@@ -1,5 +1,5 @@
 /** Invented benchmark scenario: a mature 120 L community tank with 10 events in 60 days. */
-import type { ScenarioInput } from '../shared/schemas/scenario';
+import type { ScenarioInput } from '../simulation/scenario';
 
 export const BENCH_SCENARIO: ScenarioInput = {
   name: 'Benchmark: mature 120 L tank, 10 events',

@@ -4,9 +4,9 @@
  * on the same model at matched accuracy. Errors are against a tight odex reference (rtol
  * 1e-11). Run: npm run bench:sim
  */
-import { parseScenario } from '../shared/schemas/scenario';
+import { parseScenario } from '../simulation/scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../simulation/forecast';
-import { createMathjsIntegrator } from '../simulation/reference-solver';
+import { createMathjsIntegrator } from '../tests/simulation/reference-solver';
 import { BENCH_SCENARIO } from './scenarios';
 
 const scenario = parseScenario(BENCH_SCENARIO);

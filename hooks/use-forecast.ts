@@ -1,7 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { forecastView } from '@/shared/forecast-view';
 import type { ForecastView } from '@/shared/schemas/plan';
-import { ScenarioError, type ScenarioEvent } from '@/shared/schemas/scenario';
+import { ScenarioError, type ScenarioEvent } from '@/simulation/scenario';
 import { tankScenario, type ScenarioTank } from '@/shared/tank-scenario';
 import { forecast } from '@/simulation/forecast';
 

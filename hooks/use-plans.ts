@@ -75,18 +75,6 @@ export function useUpdatePlan(id: string) {
   });
 }
 
-export function useDeletePlan(id: string) {
-  const queryClient = useQueryClient();
-  const invalidate = useInvalidatePlans();
-  return useMutation({
-    mutationFn: () => apiRequest(planUrl(id), { method: 'DELETE' }),
-    onSuccess: () => {
-      queryClient.removeQueries({ queryKey: planKeys.detail(id) });
-      return invalidate();
-    },
-  });
-}
-
 // ---- advice (POST, nothing cached on the client: each answer is for the choices sent) ----
 
 export function useAdditionAdvice(tankId: string) {

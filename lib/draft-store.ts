@@ -4,7 +4,7 @@
  * is lost when the chart or the advice panel re-renders.
  */
 import { create } from 'zustand';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 
 export type AdviceTab = 'addition' | 'removal' | 'rescue' | 'calibration' | 'capacity-test';
 

@@ -1,5 +1,5 @@
 import type { LessonKind, LessonStep } from '../shared/schemas/lesson.js';
-import type { ScenarioInput } from '../shared/schemas/scenario.js';
+import type { ScenarioInput } from '../simulation/scenario.js';
 
 /**
  * Starter lessons of the demo club: invented scenarios that show why spikes happen. Plain

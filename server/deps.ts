@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm';
 import type { BackgroundTasks } from './background.js';
 import type { Config } from './config.js';
 import type { Logger } from './logger.js';
-import type { JobQueue } from './jobs/runner.js';
+import type { JobQueue } from './jobs/job-queue.js';
 import type { Mailer } from './mail/mailer.js';
 
 /** Everything the app needs from outside; built by index.ts, or by the API tests. */

@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { findSpecies } from '../simulation/catalogue.js';
 import { ionToN } from '../simulation/units.js';
-import { eventSchema } from '../shared/schemas/scenario.js';
+import { eventSchema } from '../simulation/scenario.js';
 import { tankSetupSchema, type PlanEvent, type TankSetup } from '../shared/schemas/tank.js';
 import { ConfigError } from './config.js';
 import { createDataSource } from './data-source.js';
@@ -17,7 +17,7 @@ import { hashPassword, verifyPassword } from './services/passwords.js';
 import { DEMO_PEOPLE } from './demo-people.js';
 import { DEMO_LESSONS } from './demo-lessons.js';
 import { Lesson } from './entities/lesson.js';
-import { parseScenario } from '../shared/schemas/scenario.js';
+import { parseScenario } from '../simulation/scenario.js';
 import type { EntityManager } from 'typeorm';
 
 /**

@@ -21,12 +21,5 @@ export type ApiError = z.infer<typeof apiErrorSchema>;
 export const CSRF_HEADER = 'x-shoalshift-csrf';
 export const CSRF_HEADER_VALUE = '1';
 
-/** Turns zod issues into the `fields` map of an ApiError. */
-export function fieldErrors(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string> {
-  const out: Record<string, string> = {};
-  for (const issue of issues) {
-    const key = issue.path.map(String).join('.') || '_';
-    if (!(key in out)) out[key] = issue.message;
-  }
-  return out;
-}
+/** Turns zod issues into the `fields` map of an ApiError (the engine's own rule, simulation/scenario-error.ts). */
+export { fieldErrors } from '../simulation/scenario-error';

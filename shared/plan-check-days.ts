@@ -4,7 +4,7 @@
  * for the first days after a new load or a lost part of the biofilter (ammonia rises within a
  * day or two, nitrite a few days later), then every few days for two weeks.
  */
-import type { ScenarioEvent } from './schemas/scenario';
+import type { ScenarioEvent } from '../simulation/scenario';
 import { defaultHorizonDays } from './tank-scenario';
 
 export interface PlanCheckDay {

@@ -1,10 +1,10 @@
 /**
- * tankScenario(tank, plan, options): the engine scenario (shared/schemas/scenario.ts) of a
+ * tankScenario(tank, plan, options): the engine scenario (simulation/scenario.ts) of a
  * stored tank (shared/schemas/tank.ts) running a plan's events. Pure; used by the server
  * (plan forecasts, advice) and the app (live forecast while a draft changes).
  */
 import { zonesFromDescription } from '../simulation/presets';
-import { ScenarioError, type AerationLevel, type FishGroup, type ScenarioEvent, type ScenarioInput, type Start, type Zone } from './schemas/scenario';
+import { ScenarioError, type AerationLevel, type FishGroup, type ScenarioEvent, type ScenarioInput, type Start, type Zone } from '../simulation/scenario';
 import { TANK_DEFAULTS, type LivestockItem, type RoutineWaterChange, type TankDetail, type TankSetup } from './schemas/tank';
 
 /** The parts of a stored tank a scenario needs. */

@@ -4,7 +4,7 @@
  * without integrating anything. For advice that needs a target capacity ("the biofilter the
  * restocked tank would have") and for the app's capacity figures.
  */
-import type { Scenario } from '../shared/schemas/scenario';
+import type { Scenario } from './scenario';
 import { createForecastSession, type ForecastOptions, type ForecastReading } from './forecast';
 
 export interface SteadyCapacityOptions {

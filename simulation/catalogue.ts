@@ -3,7 +3,7 @@
  * lengths in aquaria, in cm — approximate, from memory; the keeper should enter the real
  * length. Body-shape class sets `a` of W = a·L^b (see ./bioload).
  */
-import type { ShapeClassId } from '../shared/schemas/scenario';
+import type { ShapeClassId } from './scenario';
 
 /** Body-shape classes; `a` values (g/cm^b) are from memory (model.md §4). */
 export const SHAPE_CLASSES: Record<ShapeClassId, { a: number; note: string }> = {

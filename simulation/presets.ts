@@ -3,7 +3,7 @@
  * tank description into model zones. Every number here is approximate and from memory
  * unless a source is named: a starting point the keeper can override, and calibration refines.
  */
-import type { AerationLevel, MediaType, PlantingLevel, Zone, ZoneKind } from '../shared/schemas/scenario';
+import type { AerationLevel, MediaType, PlantingLevel, Zone, ZoneKind } from './scenario';
 
 /** A zone as the engine uses it: all factors resolved. */
 export interface ResolvedZone {

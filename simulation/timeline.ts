@@ -4,7 +4,7 @@
  * the schema cannot: known species, removals that do not exceed the fish present, events
  * inside the horizon. Errors are ScenarioErrors naming the field.
  */
-import { ScenarioError, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from '../shared/schemas/scenario';
+import { ScenarioError, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
 import { fishMassG } from './bioload';
 import { findSpecies } from './catalogue';
 import { ammoniaSolutionToMgNPerL, ammoniumChlorideToMgNPerL } from './dosing';

@@ -6,7 +6,7 @@ import { useTheme } from '@/hooks/use-theme';
 import { ChartGrid, ChartLimitLines } from '@/components/forecast/chart-frame';
 import { eventMarkers, markedPadding, markerLegend, panelGeometry, xDomainFor, type ChartEvent, type EventMarker, type PanelGeometry } from '@/lib/chart-geometry';
 import { forecastPanels, MAIN_PANELS, type ForecastPanel, type PanelKey } from '@/lib/forecast-panels';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { describeEvent } from '@/components/plans/event-fields';
 import { Button } from '@/components/ui/button';
 import { PrintHint } from '@/components/ui/print-hint';

@@ -8,7 +8,7 @@
 import { fieldErrors } from '@/shared/api-error';
 import { createLessonSchema, LESSON_MAX_STEPS, type CreateLessonInput, type LessonKind } from '@/shared/schemas/lesson';
 import type { UnitPreferences } from '@/shared/schemas/preferences';
-import type { ScenarioEvent, ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioEvent, ScenarioInput } from '@/simulation/scenario';
 import { defaultSetup, TANK_DEFAULTS } from '@/shared/schemas/tank';
 import { defaultHorizonDays } from '@/shared/tank-scenario';
 import { findSpecies } from '@/simulation/catalogue';
@@ -169,9 +169,6 @@ export function clearTouched(errors: Readonly<LessonFormErrors>, touched: string
   const next = Object.fromEntries(Object.entries(errors).filter(([k]) => k !== touched && !k.startsWith(`${touched}.`)));
   return Object.keys(next).length === Object.keys(errors).length ? (errors as LessonFormErrors) : next;
 }
-
-/** Form field keys the screen shows messages under. */
-export const TANK_FIELDS = ['tank.volume', 'tank.temperature', 'tank.ph', 'tank.kh', 'tank.waterChangePercent', 'tank.waterChangeEveryDays'] as const;
 
 /** The form field behind a request path (client zod or server 400), or null when none shows it. */
 export function lessonFieldFor(path: string): string | null {

@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { View } from 'react-native';
-import type { ScenarioInput } from '@/shared/schemas/scenario';
-import { ScenarioError } from '@/shared/schemas/scenario';
+import type { ScenarioInput } from '@/simulation/scenario';
+import { ScenarioError } from '@/simulation/scenario';
 import { forecastSentences, forecastView } from '@/shared/forecast-view';
 import { forecast } from '@/simulation/forecast';
 import { useTheme } from '@/hooks/use-theme';

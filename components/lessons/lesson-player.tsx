@@ -1,7 +1,7 @@
 import { useMemo, useState } from 'react';
 import { View } from 'react-native';
 import type { LessonContent } from '@/shared/schemas/lesson';
-import type { Scenario } from '@/shared/schemas/scenario';
+import type { Scenario } from '@/simulation/scenario';
 import { forecastView } from '@/shared/forecast-view';
 import { forecastParsed } from '@/simulation/forecast';
 import { NITRITE_PRACTICE_LIMIT_MG_N } from '@/simulation/limits';

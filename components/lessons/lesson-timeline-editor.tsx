@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { View } from 'react-native';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { useTheme } from '@/hooks/use-theme';
 import { parseDecimal } from '@/lib/units-format';
 import { Button } from '@/components/ui/button';

@@ -8,7 +8,7 @@ import { isApiRequestError } from '@/lib/api-client';
 import { parseDecimal } from '@/lib/units-format';
 import { fitWindowWords, fittingLabel } from '@/lib/calibration-progress';
 import { plainNumber } from '@/shared/forecast-view';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { planOutcomeSchema } from '@/simulation/advice/schemas';
 import { AppText, Heading } from '@/components/ui/text';

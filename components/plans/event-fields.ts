@@ -3,7 +3,7 @@
  * kinds themselves live in `event-kinds.ts`; this module turns typed text into an event
  * (validated with the engine's `eventSchema`, errors by field) and an event into words.
  */
-import { eventSchema, type ScenarioEvent } from '@/shared/schemas/scenario';
+import { eventSchema, type ScenarioEvent } from '@/simulation/scenario';
 import { fieldErrors } from '@/shared/api-error';
 import { DAY_FIELD, EVENT_KINDS, kindFor, num, type EventFields, type EventType, type FieldSpec } from '@/components/plans/event-kinds';
 

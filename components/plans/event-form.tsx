@@ -1,7 +1,7 @@
 import { useEffect, useState } from 'react';
 import { Pressable, View } from 'react-native';
 import { useTheme } from '@/hooks/use-theme';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { CATALOGUE } from '@/simulation/catalogue';
 import { AppText } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';

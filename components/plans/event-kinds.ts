@@ -4,7 +4,7 @@
  * record is typed over every engine event type, so a new kind that is missing here does not
  * compile (pure, no React Native).
  */
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 import { parseDecimal } from '@/lib/units-format';
 

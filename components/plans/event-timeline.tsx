@@ -1,6 +1,6 @@
 import { Pressable, View } from 'react-native';
 import { useTheme } from '@/hooks/use-theme';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import { addDays } from '@/shared/plan-check-days';
 import { AppText } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';

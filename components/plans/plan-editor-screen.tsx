@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo } from 'react';
 import { View } from 'react-native';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { ScenarioTank } from '@/shared/tank-scenario';
 import { planCheckDays } from '@/shared/plan-check-days';

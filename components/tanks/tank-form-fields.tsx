@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { View } from 'react-native';
 import type { Preferences } from '@/shared/schemas/preferences';
 import { defaultSetup, TANK_DEFAULTS } from '@/shared/schemas/tank';
-import { PLANTING_LEVELS } from '@/shared/schemas/scenario';
+import { PLANTING_LEVELS } from '@/simulation/scenario';
 import { useTheme } from '@/hooks/use-theme';
 import { TEMPERATURE_UNIT_LABEL, VOLUME_UNIT_LABEL, nitrogenUnit, temperatureInputText, volumeInputText } from '@/lib/units-format';
 import { parseDecimal, volumeToLitres } from '@/lib/units-format';

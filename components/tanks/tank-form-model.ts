@@ -6,7 +6,7 @@
 import { fieldErrors } from '@/shared/api-error';
 import type { UnitPreferences } from '@/shared/schemas/preferences';
 import { defaultSetup, tankCreateSchema, tankPatchSchema, type TankCreateInput, type TankDetail, type TankSetup } from '@/shared/schemas/tank';
-import { AERATION_LEVELS, PLANTING_LEVELS } from '@/shared/schemas/scenario';
+import { AERATION_LEVELS, PLANTING_LEVELS } from '@/simulation/scenario';
 import { FILTER_KINDS, type FilterKind } from '@/simulation/presets';
 import {
   nitrogenIn,

@@ -1,5 +1,5 @@
 import { TANK_DEFAULTS, type LimitLevel, type LivestockItem, type NextTest, type PlanEvent, type PlanStatus, type TankSetup } from '@/shared/schemas/tank';
-import type { AerationLevel, MediaType } from '@/shared/schemas/scenario';
+import type { AerationLevel, MediaType } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 import type { StatusTone } from '@/constants/theme';
 
@@ -9,9 +9,6 @@ export const NITROGEN_FIGURES = [
   { key: 'no2MgN', label: 'Nitrite', short: 'Nitrite' },
   { key: 'no3MgN', label: 'Nitrate', short: 'Nitrate' },
 ] as const;
-
-/** Concentrations are stored and shown as nitrogen; the unit says so every time. */
-export const NITROGEN_UNIT = 'mg/L as N';
 
 export const planStatusLabel: Record<PlanStatus, { label: string; tone: StatusTone }> = {
   draft: { label: 'Draft', tone: 'info' },

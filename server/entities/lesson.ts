@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 import type { LessonKind, LessonStep } from '../../shared/schemas/lesson.js';
-import type { Scenario } from '../../shared/schemas/scenario.js';
+import type { Scenario } from '../../simulation/scenario.js';
 
 /** A teaching scenario of a club: one or two scenarios and a short narrative in steps. */
 @Entity({ name: 'lessons' })

@@ -9,9 +9,8 @@ import { User } from '../entities/user.js';
 import { readingAlertMail } from '../mail/templates/reading-alert.js';
 import { runEngine } from '../services/engine-runs.js';
 import { scenarioFromPlan } from '../services/scenario-from-plan.js';
-import { freeAmmoniaFraction } from '../../simulation/chemistry.js';
+import { freeAmmoniaMgNH3 } from '../../simulation/chemistry.js';
 import { defaultLimits } from '../../simulation/limits.js';
-import { MOLAR_MASS } from '../../simulation/units.js';
 import { planDay, type JobDeps } from './reminders.js';
 import { sendOnce } from './send-once.js';
 
@@ -50,7 +49,7 @@ export function limitFindings(r: ReadingValues): string[] {
   const limits = defaultLimits({ ph: r.ph, temperatureC: r.temperatureC });
   const out: string[] = [];
   if (r.tanMgN !== null) {
-    const freeNh3 = (r.tanMgN * freeAmmoniaFraction(r.temperatureC, r.ph) * MOLAR_MASS.NH3) / MOLAR_MASS.N;
+    const freeNh3 = freeAmmoniaMgNH3(r.tanMgN, r.temperatureC, r.ph);
     if (freeNh3 > limits.freeNh3.value)
       out.push(`Free ammonia ${fmt(freeNh3)} mg NH3/L (from total ammonia ${fmt(r.tanMgN)} mg N/L at pH ${r.ph}, ${r.temperatureC} °C) is over the limit of ${limits.freeNh3.value} mg NH3/L.`);
   }

@@ -5,7 +5,7 @@ import type { Mailer } from '../mail/mailer.js';
 import { testDayReminderMail } from '../mail/templates/test-day-reminder.js';
 import { signPayload } from '../services/secret-tokens.js';
 import { planCheckDays } from '../../shared/plan-check-days.js';
-import type { ScenarioEvent } from '../../shared/schemas/scenario.js';
+import type { ScenarioEvent } from '../../simulation/scenario.js';
 import { sendOnce } from './send-once.js';
 
 export const REMINDER_SCAN_QUEUE = 'reminders-scan';

@@ -1,13 +1,9 @@
 import PgBoss from 'pg-boss';
 import { configureEnginePool } from '../workers/engine-pool.js';
 import type { AppDeps } from '../deps.js';
+import type { JobQueue } from './job-queue.js';
 import { IMPORT_CHECK_QUEUE, READING_CHECK_QUEUE, checkImportedReadings, checkReading, type ImportCheckJob } from './alerts.js';
 import { REMINDER_SCAN_QUEUE, REMINDER_SEND_QUEUE, dueReminders, sendReminder, utcDate, type ReminderJob } from './reminders.js';
-
-/** What routes need from the queue: enqueue a job. */
-export interface JobQueue {
-  send(name: string, data: object, options?: PgBoss.SendOptions): Promise<string | null>;
-}
 
 export interface JobRunner extends JobQueue {
   boss: PgBoss;

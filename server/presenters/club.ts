@@ -1,5 +1,5 @@
 import type { ClubDetail, ClubShare, CommentItem, SharedItemDetail } from '../../shared/schemas/club.js';
-import type { Scenario } from '../../shared/schemas/scenario.js';
+import type { Scenario } from '../../simulation/scenario.js';
 import type { ClubMembership } from '../entities/club-membership.js';
 import type { Plan } from '../entities/plan.js';
 import type { TankDetailRows } from '../services/tanks.js';

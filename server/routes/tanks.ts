@@ -13,7 +13,6 @@ import { livestockRouter } from './livestock.js';
 import { readingsRouter } from './readings.js';
 
 const tankId = z.string().uuid();
-const TANK = Symbol('ownTank');
 
 /**
  * The id of the tank in the path, when it parses. Another keeper's tank and a malformed id
@@ -31,7 +30,6 @@ function ownTank(deps: AppDeps): RequestHandler {
     const id = tankIdParam(req.params.id);
     const tank = await findOwnTank(deps.dataSource, currentUser(req).id, id);
     if (!tank) throw notFound('No such tank.');
-    (req as unknown as Record<symbol, unknown>)[TANK] = tank;
     next();
   };
 }

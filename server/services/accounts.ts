@@ -52,10 +52,6 @@ export async function authenticate(ds: DataSource, email: string, password: stri
   return (await verifyPassword(password, user.passwordHash)) ? user : null;
 }
 
-export async function findUser(ds: DataSource, userId: string): Promise<User | null> {
-  return ds.getRepository(User).findOneBy({ id: userId });
-}
-
 /** The user's club memberships with their clubs, by club name. */
 export async function listMemberships(ds: DataSource, userId: string): Promise<ClubMembership[]> {
   return ds.getRepository(ClubMembership).find({

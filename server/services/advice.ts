@@ -9,15 +9,17 @@ import type {
   removalAdviceBodySchema,
   rescueAdviceBodySchema,
 } from '../../shared/schemas/plan.js';
-import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../shared/schemas/scenario.js';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../simulation/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
 import {
   additionResponseSchema,
   calibrationResponseSchema,
+  capacityTestResponseSchema,
+  ensembleResponseSchema,
   removalResponseSchema,
   rescueResponseSchema,
 } from '../../simulation/advice/schemas.js';
-import { CALIBRATION_DEFAULT_DAYS, capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
+import { CALIBRATION_DEFAULT_DAYS } from '../../shared/schemas/plan.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import type { Tank } from '../entities/tank.js';

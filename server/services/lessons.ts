@@ -3,7 +3,7 @@ import type { Db } from '../data-source.js';
 import type { ClubRole } from '../../shared/schemas/auth.js';
 import type { z } from 'zod';
 import type { LessonDetail, LessonSummary, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
-import type { Scenario } from '../../shared/schemas/scenario.js';
+import type { Scenario } from '../../simulation/scenario.js';
 import { forbidden, notFound, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
 import { Lesson } from '../entities/lesson.js';

@@ -1,7 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { forecastSentences, START_SENTENCES } from '../../shared/forecast-view.js';
 import type { ForecastView, PlanForecastResponse } from '../../shared/schemas/plan.js';
-import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent } from '../../shared/schemas/scenario.js';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent } from '../../simulation/scenario.js';
 import { tankScenario, type StartReason } from '../../shared/tank-scenario.js';
 import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAUTIONS } from '../../simulation/advice/cautions.js';
 import { validationFailed } from '../errors.js';

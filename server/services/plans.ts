@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import { independentQueries, type Db } from '../data-source.js';
-import { parseScenario, ScenarioError, type ScenarioEvent } from '../../shared/schemas/scenario.js';
+import { parseScenario, ScenarioError, type ScenarioEvent } from '../../simulation/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
 import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
 import { Livestock } from '../entities/livestock.js';

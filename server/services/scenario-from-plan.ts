@@ -1,7 +1,7 @@
 import type { Livestock } from '../entities/livestock.js';
 import type { Plan } from '../entities/plan.js';
 import type { Tank } from '../entities/tank.js';
-import { parseScenario, ScenarioError, type Scenario } from '../../shared/schemas/scenario.js';
+import { parseScenario, ScenarioError, type Scenario } from '../../simulation/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
 import { toScenarioTank } from './plans.js';
 

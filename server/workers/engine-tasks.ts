@@ -3,9 +3,9 @@
  * out: errors cannot cross a thread boundary with their class, so refusals come back as
  * `{ ok: false }` results the route turns into 400s.
  */
-import { ScenarioError, parseScenario } from '../../shared/schemas/scenario.js';
+import { ScenarioError, parseScenario } from '../../simulation/scenario.js';
 import { forecastView } from '../../shared/forecast-view.js';
-import { forecastParsed } from '../../simulation/forecast.js';
+import { forecastParsed } from '../../simulation/forecast/index.js';
 import {
   calibrate,
   capacityTestProtocol,
@@ -22,7 +22,7 @@ import {
 } from '../../simulation/advice/index.js';
 import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble.js';
 import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
-import type { Scenario, ScenarioInput } from '../../shared/schemas/scenario.js';
+import type { Scenario, ScenarioInput } from '../../simulation/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
 import { overEnsembleBudgetFields } from '../../simulation/work-budget.js';
 

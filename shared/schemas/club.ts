@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { clubRoleSchema, displayNameSchema, passwordSchema } from './auth';
-import { scenarioSchema } from './scenario';
+import { scenarioSchema } from '../../simulation/scenario';
 import { planSchema, tankDetailSchema } from './tank';
 
 /** GET /api/clubs/:clubId — any member of the club may read it. */

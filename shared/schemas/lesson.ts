@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { scenarioSchema } from './scenario';
+import { scenarioSchema } from '../../simulation/scenario';
 
 /** One step of a lesson's narrative. */
 export const lessonStepSchema = z.strictObject({

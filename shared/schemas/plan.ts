@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { eventSchema, fishGroupSchema, startSchema } from './scenario';
+import { eventSchema, fishGroupSchema, startSchema } from '../../simulation/scenario';
 import { planStatusSchema } from './tank';
 import { MAX_HORIZON_DAYS } from '../tank-scenario';
 import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from '../../simulation/work-budget';
@@ -8,12 +8,12 @@ import {
   adviceSettingsSchema,
   ammoniaSolutionSchema,
   calibrationRequestSchema,
-  capacityTestProtocolSchema,
   capacityTestRequestSchema,
-  ensembleBandSchema,
   removalRequestSchema,
   rescueRequestSchema,
   calibrationResponseSchema,
+  capacityTestResponseSchema,
+  ensembleResponseSchema,
   limitSettingsSchema,
 } from '../../simulation/advice/schemas';
 
@@ -143,20 +143,9 @@ export const capacityTestBodySchema = z.object({
   start: startSchema.optional(),
 });
 
-export const ensembleResponseSchema = z.object({
-  band: ensembleBandSchema,
-  members: z.number().int(),
-  failed: z.number().int(),
-  explanation: z.array(z.string()).min(1),
-  cautions: z.array(z.string()).min(1),
-});
 export const calibrationAdviceResponseSchema = calibrationResponseSchema.extend({
   readingsUsed: z.number().int(),
   firstReadingAt: z.string(),
 });
-export const capacityTestResponseSchema = z.object({
-  protocol: capacityTestProtocolSchema,
-  estimate: calibrationResponseSchema.nullable(),
-});
-
-export { adviceSettingsSchema, fishGroupSchema };
+/** The engine's own answers, passed through unchanged. */
+export { adviceSettingsSchema, capacityTestResponseSchema, ensembleResponseSchema, fishGroupSchema };

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { scenarioSchema } from './scenario';
+import { scenarioSchema } from '../../simulation/scenario';
 import { planEventSchema } from './tank';
 import { lessonContentSchema } from './lesson';
 

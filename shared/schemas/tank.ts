@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { FILTER_KINDS } from '../../simulation/presets';
-import { AERATION_LEVELS, MEDIA_TYPES, PLANTING_LEVELS, eventSchema, zoneSchema, type ScenarioEvent } from './scenario';
+import { AERATION_LEVELS, MEDIA_TYPES, PLANTING_LEVELS, eventSchema, zoneSchema, type ScenarioEvent } from '../../simulation/scenario';
 
 /** Basis a test kit reports ammonia/nitrite/nitrate in: as nitrogen, or as the ion. */
 export const readingBasisSchema = z.enum(['N', 'ion']);
@@ -101,7 +101,7 @@ export const readingSchema = z.object({
 });
 export type ReadingItem = z.infer<typeof readingSchema>;
 
-/** A plan's events are the engine's scenario events (shared/schemas/scenario.ts), stored as parsed. */
+/** A plan's events are the engine's scenario events (simulation/scenario.ts), stored as parsed. */
 export const planEventSchema = eventSchema;
 export type PlanEvent = ScenarioEvent;
 
@@ -135,7 +135,7 @@ export type TankDetail = z.infer<typeof tankDetailSchema>;
 
 // ---- Tank edits (POST /api/tanks, PATCH /api/tanks/:id) ---------------------------------------
 
-/** Ranges match the engine's tank schema (shared/schemas/scenario.ts), so a saved tank always forecasts. */
+/** Ranges match the engine's tank schema (simulation/scenario.ts), so a saved tank always forecasts. */
 const nameField = z
   .string({ error: 'Enter a name for the tank.' })
   .trim()

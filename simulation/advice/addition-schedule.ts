@@ -24,7 +24,7 @@
  * re-judging of the day before the chosen one runs in full, to name the limit that sets the
  * pace (the highest peak ratio).
  */
-import type { FishGroup, Scenario, ScenarioEvent } from '../../shared/schemas/scenario';
+import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
 import { createForecastSession, forecastParsed, type ForecastSeries, type ForecastSession, type ForecastState } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { bandExplanation, memberOptions } from './ensemble';

@@ -2,7 +2,7 @@
  * Settings every advisor shares, resolved once: the tank's limits, the forecast options the
  * judge uses, and the ensemble spec.
  */
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import type { ForecastOptions } from '../forecast';
 import type { ParameterOverrides } from '../parameters';
 import { DEFAULT_SEED, MIN_BAND_MEMBERS, type EnsembleSpec } from './ensemble';

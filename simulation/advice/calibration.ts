@@ -23,7 +23,7 @@
  * hypercube through the normal quantile, with the other model values at their defaults — the
  * fit was made at those values, so letting them vary independently would ignore that.
  */
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
 import { MOLAR_MASS } from '../units';

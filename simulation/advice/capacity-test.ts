@@ -10,7 +10,7 @@
  * Estimator: calibration (./calibration) of the capacity factors alone on those readings,
  * with the dose as an event at hour 0.
  */
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import { ammoniaSolutionForDose, ammoniumChlorideForDose, type AmmoniaSolution } from '../dosing';
 import { forecastParsed } from '../forecast';
 import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS } from './cautions';

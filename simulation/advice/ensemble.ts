@@ -13,7 +13,7 @@
  *   so the two are not counted twice.
  * Ranges spanning ten times or more are sampled log-uniformly (see ./latin-hypercube).
  */
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import { forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { PARAMETERS, PARAMETER_KEYS, type ParameterKey, type ParameterOverrides } from '../parameters';
 import { latinHypercube, rangeScale, scaleUnit } from './latin-hypercube';

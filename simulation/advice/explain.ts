@@ -1,5 +1,4 @@
 /** Keeper-facing sentences shared by the advisors. */
-import type { ForecastVerdict } from './judge';
 import type { PlanOutcome } from './plan-outcome';
 import { formatValue, type AppliedLimit, type LimitKey } from './tank-limits';
 
@@ -12,20 +11,6 @@ export function limitByKey(limits: readonly AppliedLimit[], key: LimitKey): Appl
 /** "nitrite (0.1 mg N/L; culture practice …; source …)" */
 export function describeLimit(limit: AppliedLimit): string {
   return `${limit.label} limit ${formatValue(limit.value)} ${limit.unit} (${limit.basis}; source: ${limit.source})`;
-}
-
-/** One sentence on how a verdict relates to its binding limit. */
-export function describeVerdict(v: ForecastVerdict, limits: readonly AppliedLimit[], what: string): string {
-  const l = limitByKey(limits, v.binding);
-  const lv = v.limits.find((x) => x.key === v.binding)!;
-  if (v.safe) {
-    return `${what}: ${l.label} comes closest to its limit, peaking at ${formatValue(lv.peakValue)} ${l.unit} on day ${formatValue(lv.peakDay)} — ${Math.round(lv.peakRatio * 100)} % of the limit.`;
-  }
-  return (
-    `${what}: ${l.label} goes over its limit from day ${formatValue(lv.firstDayOver ?? lv.peakDay)}, peaking at ` +
-    `${formatValue(lv.peakValue)} ${l.unit} on day ${formatValue(lv.peakDay)} (${Math.round(lv.peakRatio * 100)} % of the limit) ` +
-    `and staying over for about ${formatValue(lv.daysOver)} days.`
-  );
 }
 
 /** Why a limit binds: the species and what it does to fish. */

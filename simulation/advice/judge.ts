@@ -16,7 +16,7 @@
  * so the advisor checks its final answer against the whole ensemble and widens the set with
  * any member that breaks the bound.
  */
-import type { Scenario } from '../../shared/schemas/scenario';
+import type { Scenario } from '../scenario';
 import { epaAcuteTan, epaChronicTan } from '../chemistry';
 import type { Forecast, ForecastOptions } from '../forecast';
 import { forecastMember, runConditionedEnsemble, type EnsembleMember, type EnsembleResult, type EnsembleSpec } from './ensemble';

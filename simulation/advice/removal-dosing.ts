@@ -11,7 +11,7 @@
  * detritus (model.md §4), so grams-per-day feeding is cut in proportion to the fish mass left;
  * feeding given as a share of body mass already follows the fish.
  */
-import type { FishGroup, Scenario, ScenarioEvent } from '../../shared/schemas/scenario';
+import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
 import { fishMassG } from '../bioload';
 import { ammoniaSolutionForDose, ammoniumChlorideForDose, type AmmoniaSolution } from '../dosing';
 import { steadyStateCapacity } from '../capacity';

@@ -11,7 +11,7 @@
  * crosses a limit. Finally the plan is checked against the whole ensemble; a member breaking
  * the 90th-percentile bound joins the bounding set and the search runs again.
  */
-import type { Scenario, ScenarioEvent } from '../../shared/schemas/scenario';
+import type { Scenario, ScenarioEvent } from '../scenario';
 import { forecastParsed } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { ESTIMATE_CAUTIONS, WATER_CHANGE_CAUTIONS } from './cautions';

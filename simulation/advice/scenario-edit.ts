@@ -3,7 +3,7 @@
  * start (scaled feeding is the engine's `feedingMultiplier` option). Inputs are never
  * mutated; the result is a new object sharing unchanged parts.
  */
-import type { Scenario, ScenarioEvent, Start } from '../../shared/schemas/scenario';
+import type { Scenario, ScenarioEvent, Start } from '../scenario';
 
 /** The scenario with `events` appended to its timeline. */
 export function withEvents(scenario: Scenario, events: readonly ScenarioEvent[]): Scenario {

@@ -3,7 +3,7 @@
  * server code here: the server imports these. Concentrations mg N/L, days from day 0.
  */
 import { z } from 'zod';
-import { fishGroupSchema, scenarioSchema } from '../../shared/schemas/scenario';
+import { fishGroupSchema, scenarioSchema } from '../scenario';
 import { LIMIT_KEYS } from './tank-limits';
 
 const limitKey = z.enum(LIMIT_KEYS);
@@ -230,6 +230,19 @@ export const capacityTestProtocolSchema = z.object({
   expectedTanMgN: z.array(z.number()),
   steps: z.array(z.string()).min(1),
   cautions: z.array(z.string()).min(1),
+});
+
+/** The ensemble band of a scenario with its words (server/workers/engine-tasks.ts builds it from runEnsemble). */
+export const ensembleResponseSchema = z.object({
+  band: ensembleBandSchema,
+  members: z.number().int(),
+  failed: z.number().int(),
+  ...words,
+});
+/** A capacity test's protocol and, once its readings are given, the capacity they show. */
+export const capacityTestResponseSchema = z.object({
+  protocol: capacityTestProtocolSchema,
+  estimate: calibrationResponseSchema.nullable(),
 });
 
 export type AdditionRequestInput = z.input<typeof additionRequestSchema>;

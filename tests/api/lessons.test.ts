@@ -5,7 +5,7 @@ import { Lesson } from '../../server/entities/lesson.js';
 import { DEMO_LESSONS } from '../../server/demo-lessons.js';
 import { DEMO_PEOPLE } from '../../server/demo-people.js';
 import { seedDemo } from '../../server/seed.js';
-import { forecast } from '../../simulation/forecast.js';
+import { forecast } from '../../simulation/forecast/index.js';
 import { peakOf } from '../../simulation/series-stats.js';
 import { GOOD_PASSWORD, addMember, createClub, createPlan, createTank, createUser } from './helpers/factories.js';
 import { client, useTestApp } from './helpers/test-app.js';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { meSchema } from '../../shared/schemas/auth.js';
-import { eventSchema } from '../../shared/schemas/scenario.js';
+import { eventSchema } from '../../simulation/scenario.js';
 import { tankDetailSchema, tankListSchema } from '../../shared/schemas/tank.js';
 import { findSpecies } from '../../simulation/catalogue.js';
 import { User } from '../../server/entities/user.js';

@@ -7,7 +7,7 @@ import { feedNitrogenFlows, fishMassG } from '@/simulation/bioload';
 import { forecast } from '@/simulation/forecast';
 import { DEFAULT_PARAMETERS } from '@/simulation/parameters';
 import { peakOf, settledBelowDay } from '@/simulation/series-stats';
-import type { ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioInput } from '@/simulation/scenario';
 import { matureWithPlaties, startUp, tank } from './scenarios';
 
 const before = { horizonDays: 60, eventSampling: 'before' as const };

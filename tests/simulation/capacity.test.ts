@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario, ScenarioError } from '@/shared/schemas/scenario';
+import { parseScenario, ScenarioError } from '@/simulation/scenario';
 import { steadyStateCapacity } from '@/simulation/capacity';
 import { forecastParsed } from '@/simulation/forecast';
 import { expectClose } from './helpers';

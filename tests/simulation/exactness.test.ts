@@ -3,10 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { oxygenSaturation } from '@/simulation/chemistry';
 import { forecast } from '@/simulation/forecast';
 import { AERATION_OXYGEN_SHARE } from '@/simulation/presets';
-import { createMathjsIntegrator } from '@/simulation/reference-solver';
+import { createMathjsIntegrator } from './reference-solver';
 import { DEFAULT_PARAMETERS } from '@/simulation/parameters';
 import { SolverError } from '@/simulation/solver';
-import type { ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioInput } from '@/simulation/scenario';
 import { expectClose } from './helpers';
 import { matureWithPlaties, tank } from './scenarios';
 

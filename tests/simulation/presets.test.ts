@@ -3,7 +3,7 @@ import { CATALOGUE, findSpecies } from '@/simulation/catalogue';
 import { forecast } from '@/simulation/forecast';
 import { PARAMETERS, PARAMETER_KEYS, resolveParameters } from '@/simulation/parameters';
 import { FILTER_KINDS, MEDIA_PRESETS, resolveZone, zonesFromDescription } from '@/simulation/presets';
-import { scenarioSchema } from '@/shared/schemas/scenario';
+import { scenarioSchema } from '@/simulation/scenario';
 
 describe('zone presets (approximate, from memory)', () => {
   const bare = zonesFromDescription({ volumeL: 120, filter: { kind: 'sponge', mediaVolumeL: 0.5 }, substrate: 'bare', hardscape: 'none' });

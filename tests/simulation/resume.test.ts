@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '@/shared/schemas/scenario';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '@/simulation/scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '@/simulation/forecast';
 import { expectClose } from './helpers';
 import { matureWithPlaties, tank } from './scenarios';

@@ -1,4 +1,4 @@
-import type { ScenarioInput } from '@/shared/schemas/scenario';
+import type { ScenarioInput } from '@/simulation/scenario';
 
 type Tank = ScenarioInput['tank'];
 

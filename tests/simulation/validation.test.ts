@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { forecast } from '@/simulation/forecast';
-import { ScenarioError, type ScenarioInput } from '@/shared/schemas/scenario';
+import { ScenarioError, type ScenarioInput } from '@/simulation/scenario';
 import { matureWithPlaties, startUp, tank } from './scenarios';
 
 function fieldsOf(s: unknown, options = {}): Record<string, string> {

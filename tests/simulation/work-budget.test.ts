@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { planCreateSchema } from '../../shared/schemas/plan';
-import { eventSchema, parseScenario, scenarioSchema, ScenarioError, tankSchema } from '../../shared/schemas/scenario';
+import { eventSchema, parseScenario, scenarioSchema, ScenarioError, tankSchema } from '../../simulation/scenario';
 import { rescueRequestSchema } from '../../simulation/advice/schemas';
 import { forecast } from '../../simulation/forecast';
 import { countTimelineEntries, MAX_ENSEMBLE_WORK, MAX_TIMELINE_ENTRIES, overBudgetFields, overEnsembleBudgetFields } from '../../simulation/work-budget';

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createLessonSchema } from '@/shared/schemas/lesson';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import type { UnitPreferences } from '@/shared/schemas/preferences';
 import { forecast } from '@/simulation/forecast';
 import {

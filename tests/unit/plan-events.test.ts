@@ -3,7 +3,7 @@ import { addDays, planCheckDays } from '@/shared/plan-check-days';
 import { applySchedule, sortEvents } from '@/lib/draft-store';
 import { blankFields, describeEvent, describeEventOnDay, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
 import { EVENT_KINDS } from '@/components/plans/event-kinds';
-import { eventSchema, type ScenarioEvent } from '@/shared/schemas/scenario';
+import { eventSchema, type ScenarioEvent } from '@/simulation/scenario';
 
 const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: { species: 'neon-tetra', count, lengthCm: 3 } });
 const wc = (day: number): ScenarioEvent => ({ type: 'water-change', day, percent: 25 });

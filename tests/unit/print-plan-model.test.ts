@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { planCheckDays } from '@/shared/plan-check-days';
 import { ESTIMATE_CAUTIONS, REHOMING_CAUTIONS } from '@/simulation/advice/cautions';
-import type { ScenarioEvent } from '@/shared/schemas/scenario';
+import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import { DEFAULT_PREFERENCES } from '@/shared/schemas/preferences';
 import { fishLists, IF_HIGH, keepInMind, printDays, printLimits, readingColumns, tankFacts } from '@/components/plans/print-plan-model';

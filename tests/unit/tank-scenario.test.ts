@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { forecast } from '@/simulation/forecast';
-import { parseScenario, ScenarioError, type ScenarioEvent } from '@/shared/schemas/scenario';
+import { parseScenario, ScenarioError, type ScenarioEvent } from '@/simulation/scenario';
 import { defaultHorizonDays, lastActionDay, routineWaterChangeFor, startFor, tankScenario, zonesForSetup, type ScenarioTank } from '@/shared/tank-scenario';
 
 const ID = '00000000-0000-4000-8000-000000000001';

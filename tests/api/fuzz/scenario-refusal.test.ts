@@ -2,8 +2,8 @@ import fs from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { afterAll, describe, expect, it } from 'vitest';
-import { ScenarioError, parseScenario } from '../../../shared/schemas/scenario.js';
-import { forecast } from '../../../simulation/forecast.js';
+import { ScenarioError, parseScenario } from '../../../simulation/scenario.js';
+import { forecast } from '../../../simulation/forecast/index.js';
 import { FUZZ_SEED, caseCounter } from './seed.js';
 
 // Tests run from the repository root (vitest's root).

@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import type { Scenario } from '../../../shared/schemas/scenario';
+import type { Scenario } from '../../../simulation/scenario';
 import { fastestSafeSchedule, splitCount, type AdditionAdvice } from '../../../simulation/advice/addition-schedule';
 import { runConditionedEnsemble } from '../../../simulation/advice/ensemble';
 import { settledTankAccepts } from '../../../simulation/advice/judge';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario } from '../../../shared/schemas/scenario';
+import { parseScenario } from '../../../simulation/scenario';
 import { tankSetupSchema } from '../../../shared/schemas/tank';
 import { tankScenario } from '../../../shared/tank-scenario';
 import { bandChange, calibrate, describeBandChange } from '../../../simulation/advice/calibration';

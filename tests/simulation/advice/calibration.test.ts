@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario } from '../../../shared/schemas/scenario';
+import { parseScenario } from '../../../simulation/scenario';
 import { calibrate, scaledScenario } from '../../../simulation/advice/calibration';
 import { roundToKit } from '../../../simulation/advice/kit-error';
 import { normalDraw, seededRandom } from '../../../simulation/advice/random';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario } from '../../../shared/schemas/scenario';
+import { parseScenario } from '../../../simulation/scenario';
 import { capacityTestProtocol, estimateCapacityFromTest, READING_HOURS } from '../../../simulation/advice/capacity-test';
 import { roundToKit } from '../../../simulation/advice/kit-error';
 import { forecastParsed } from '../../../simulation/forecast';

@@ -3,7 +3,7 @@
  * ensemble: each member forecast by the engine directly, with its own peak-ratio arithmetic
  * (not the advisor's judge).
  */
-import { parseScenario, type Scenario } from '../../../shared/schemas/scenario';
+import { parseScenario, type Scenario } from '../../../simulation/scenario';
 import { epaAcuteTan, epaChronicTan } from '../../../simulation/chemistry';
 import { forecastParsed, type Forecast } from '../../../simulation/forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../../../simulation/parameters';

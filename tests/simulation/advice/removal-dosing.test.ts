@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { parseScenario } from '../../../shared/schemas/scenario';
+import { parseScenario } from '../../../simulation/scenario';
 import { supplementaryDosing } from '../../../simulation/advice/removal-dosing';
 import { removalResponseSchema } from '../../../simulation/advice/schemas';
 import { forecastParsed } from '../../../simulation/forecast';

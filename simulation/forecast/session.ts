@@ -11,19 +11,19 @@
  * state remembers which scenario prefix (tank, start, fish, feeding, events before d,
  * parameters, feeding multiplier) produced it, and a mismatch is refused.
  */
-import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '../shared/schemas/scenario';
-import { feedNitrogenFlows, type FeedFlows, type Feeding } from './bioload';
-import { carbonateCo2, epaAcuteTan, epaChronicTan } from './chemistry';
-import { defaultLimits, type LimitChoices, type TankLimits } from './limits';
-import { aoIndex, createModel, I_KH, I_NO2, I_NO3, I_ORG, I_PLANT, I_TAN, noIndex, type Model, type SegmentConditions } from './model';
-import { resolveParameters, type ParameterOverrides, type Parameters } from './parameters';
-import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone, type ResolvedZone } from './presets';
-import { createOdexIntegrator, type IntegrationStats, type SamplingMode, type SegmentIntegrator } from './solver';
-import { LoadTooHighError, matureSteadyState } from './steady-state';
-import { daysOver, peakOf, type Excursion, type Peak } from './series-stats';
-import { buildTimeline, doseMgNPerL, type Breakpoint } from './timeline';
-import { MOLAR_MASS } from './units';
-import { overBudgetFields } from './work-budget';
+import { parseScenario, ScenarioError, type Scenario, type ScenarioInput } from '../scenario';
+import { feedNitrogenFlows, type FeedFlows, type Feeding } from '../bioload';
+import { carbonateCo2, epaAcuteTan, epaChronicTan } from '../chemistry';
+import { defaultLimits, type LimitChoices, type TankLimits } from '../limits';
+import { aoIndex, createModel, I_KH, I_NO2, I_NO3, I_ORG, I_PLANT, I_TAN, noIndex, type Model, type SegmentConditions } from '../model';
+import { resolveParameters, type ParameterOverrides, type Parameters } from '../parameters';
+import { AERATION_OXYGEN_SHARE, PLANTING_UPTAKE_SHARE, resolveZone, type ResolvedZone } from '../presets';
+import { createOdexIntegrator, SolverError, type IntegrationStats, type SamplingMode, type SegmentIntegrator } from '../solver';
+import { LoadTooHighError, matureSteadyState } from '../steady-state';
+import { daysOver, peakOf, type Excursion, type Peak } from '../series-stats';
+import { buildTimeline, doseMgNPerL, type Breakpoint } from '../timeline';
+import { MOLAR_MASS } from '../units';
+import { overBudgetFields } from '../work-budget';
 
 export interface ForecastOptions {
   /** Output interval, days (default 1). */
@@ -462,6 +462,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
   let t = t0;
   let k = 0;
   let segments = 0;
+  const work: IntegrationStats = { steps: 0, accepted: 0, rejected: 0, evaluations: 0 };
   let started = false;
   let finished = false;
   const before = options.eventSampling === 'before';
@@ -488,8 +489,13 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
       const dt = tEnd - t;
       balance.feedOfferedMg += feedFlows.offeredN * dt;
       balance.fishRetainedMg += feedFlows.retained * dt;
-      integrator.integrate(rhs, t, tEnd, y, times, k, kEnd, record);
+      const segment = integrator.integrate({ f: rhs, from: t, to: tEnd, y, times, first: k, end: kEnd, sink: record });
+      work.steps += segment.stats.steps;
+      work.accepted += segment.stats.accepted;
+      work.rejected += segment.stats.rejected;
+      work.evaluations += segment.stats.evaluations;
       segments++;
+      if (!segment.outcome.ok) throw new SolverError(segment.outcome.message);
       k = kEnd;
       t = tEnd;
     }
@@ -574,7 +580,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
       },
       nitrogenBalance: balance,
     };
-    return { series, summary, stats: { ...integrator.stats, segments } };
+    return { series, summary, stats: { ...work, segments } };
   };
 
   return {

@@ -1,11 +1,12 @@
 /**
  * Command line: `npm run forecast -- scenario.json [--horizon 60] [--step 1] [--csv] [--before]`.
- * Prints the forecast as JSON (or the series as CSV). The only I/O of simulation/ lives here.
+ * Prints the forecast as JSON (or the series as CSV). The engine (simulation/) does no I/O;
+ * reading the file and printing are this command's.
  */
 import { readFileSync } from 'node:fs';
-import { ScenarioError } from '../shared/schemas/scenario';
-import { forecast, type Forecast } from './forecast';
-import { SolverError } from './solver';
+import { ScenarioError } from '../simulation/scenario';
+import { forecast, type Forecast } from '../simulation/forecast';
+import { SolverError } from '../simulation/solver';
 
 const HELP = `Shoalshift forecast — nitrogen cycle of one tank over a timeline of events.
 
@@ -19,7 +20,7 @@ Options:
   --help             this text
 
 Scenario format (JSON; concentrations in mg/L as N; days from 0; see
-shared/schemas/scenario.ts for every field, default and limit):
+simulation/scenario.ts for every field, default and limit):
   tank:     volumeL, temperatureC, ph, khDegrees?, phModel? ("fixed" | "carbonate"),
             tapWater? {tanMgN, no2MgN, no3MgN, khDegrees?}, aeration?, lightHoursPerDay?,
             plants? ("none"|"light"|"moderate"|"heavy"), chlorideMgL?,

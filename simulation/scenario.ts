@@ -1,10 +1,12 @@
 import { z } from 'zod';
-import { fieldErrors } from '../api-error';
-import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from '../../simulation/work-budget';
+import { fieldErrors, ScenarioError } from './scenario-error';
+import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from './work-budget';
+
+export { ScenarioError } from './scenario-error';
 
 /**
- * The scenario format: one tank, how it starts, and a timeline of events. Single source of
- * truth for the forecast engine (simulation/), the API server and the app. Concentrations are
+ * The scenario format: one tank, how it starts, and a timeline of events: the engine's input,
+ * one source of truth for the engine, the API server and the app. Concentrations are
  * "as N" (mg N/L); days count from the forecast start (day 0).
  */
 
@@ -266,17 +268,6 @@ export type Start = z.output<typeof startSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
 /** What a caller may write (defaults not yet filled in). */
 export type ScenarioInput = z.input<typeof scenarioSchema>;
-
-/** A scenario that cannot be forecast; `fields` maps a dot-joined path to a message. */
-export class ScenarioError extends Error {
-  readonly fields: Record<string, string>;
-  constructor(fields: Record<string, string>) {
-    const first = Object.entries(fields)[0];
-    super(first ? `Invalid scenario: ${first[0]}: ${first[1]}` : 'Invalid scenario');
-    this.name = 'ScenarioError';
-    this.fields = fields;
-  }
-}
 
 /** Parses and defaults a scenario, or throws ScenarioError naming each bad field. */
 export function parseScenario(input: unknown): Scenario {
