@@ -24,6 +24,8 @@ import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble
 import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
 import type { ScenarioInput } from '../../simulation/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
+import type { CapacityTestRequest } from '../../simulation/advice/schemas.js';
+import type { AmmoniaSolution } from '../../simulation/dosing.js';
 
 export type EngineTask =
   | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
@@ -35,9 +37,9 @@ export type EngineTask =
   | {
       kind: 'capacity-test';
       scenario: ScenarioInput;
-      solution?: { percentNH3: number; densityGPerMl?: number };
+      solution?: AmmoniaSolution;
       limits?: LimitSettings;
-      test?: { doseMgNPerL: number; readings: { hour: number; tanMgN: number; no2MgN?: number }[]; kit?: { stepMgN: number; relativeError: number } };
+      test?: Omit<CapacityTestRequest, 'scenario'>;
     };
 
 export type EngineResult =
