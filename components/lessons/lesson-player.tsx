@@ -18,7 +18,7 @@ import { CautionsList } from '@/components/forecast/cautions-list';
 import { GuessChart } from './guess-chart';
 import { scoreGuess, shortValue, type PeakPoint } from './guess-score';
 
-/** Forecast length when a scenario gives none (simulation/forecast.ts default). */
+/** Forecast length when a scenario gives none (simulation/forecast/options.ts default). */
 const DEFAULT_HORIZON_DAYS = 60;
 
 /** Days over the nitrite limit in words; the engine gives fractions of a day. */

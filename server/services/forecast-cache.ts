@@ -1,19 +1,18 @@
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
 import type { DataSource } from 'typeorm';
-import { PARAMETERS } from '../../simulation/parameters.js';
+import { ENGINE_VERSION } from './engine-version.js';
 
 /**
  * The PostgreSQL forecast cache (migration 1796180000500). Shared by every server process,
  * safe to lose. Keys are sha256 of canonical JSON, so equal inputs in any key order hit.
  *
  * In front of it, each process keeps its most recent results in memory. A key names its
- * inputs and the engine version, so a kept result can never be stale: losing it (a restart,
- * another process) only costs one database read, which is what scaling out allows.
+ * inputs and the engine version (a hash of the engine's sources, engine-version.ts), so a kept
+ * result cannot outlive a change of its inputs or of the engine: losing it (a restart, another
+ * process) only costs one database read, which is what scaling out allows.
  */
 
-/** Bump when the engine's equations or the forecast's shape change without a parameter change. */
-export const ENGINE_REVISION = 1;
 /** Rows unused this long are removed when a new row is written. */
 export const CACHE_KEEP_DAYS = 30;
 
@@ -30,9 +29,6 @@ export function canonicalJson(value: unknown): string {
 }
 
 export const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
-
-/** The engine version: its revision and a hash of the whole parameter table (defaults and ranges). */
-export const ENGINE_VERSION = `r${ENGINE_REVISION}-${sha256(canonicalJson(PARAMETERS)).slice(0, 16)}`;
 
 export function inputHash(kind: string, inputs: unknown): string {
   return sha256(canonicalJson({ kind, engineVersion: ENGINE_VERSION, inputs }));

@@ -7,7 +7,8 @@ import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAU
 import { validationFailed } from '../errors.js';
 import { FORECAST_BAND_MEMBERS } from '../workers/engine-tasks.js';
 import { runEngine, type EngineCaller } from './engine-runs.js';
-import { ENGINE_VERSION, inputHash, readCache, writeCache } from './forecast-cache.js';
+import { ENGINE_VERSION } from './engine-version.js';
+import { inputHash, readCache, writeCache } from './forecast-cache.js';
 import { scenarioTankOf, type OwnPlan } from './plans.js';
 
 interface StoredForecast {

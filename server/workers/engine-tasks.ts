@@ -25,6 +25,8 @@ import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
 import type { Scenario, ScenarioInput } from '../../simulation/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
 import { overEnsembleBudgetFields } from '../../simulation/work-budget.js';
+import type { CapacityTestRequest } from '../../simulation/advice/schemas.js';
+import type { AmmoniaSolution } from '../../simulation/dosing.js';
 
 export type EngineTask =
   | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
@@ -38,9 +40,9 @@ export type EngineTask =
   | {
       kind: 'capacity-test';
       scenario: ScenarioInput;
-      solution?: { percentNH3: number; densityGPerMl?: number };
+      solution?: AmmoniaSolution;
       limits?: LimitSettings;
-      test?: { doseMgNPerL: number; readings: { hour: number; tanMgN: number; no2MgN?: number }[]; kit?: { stepMgN: number; relativeError: number } };
+      test?: Omit<CapacityTestRequest, 'scenario'>;
     };
 
 export type EngineResult =

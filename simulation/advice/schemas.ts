@@ -247,3 +247,4 @@ export const capacityTestResponseSchema = z.object({
 
 export type AdditionRequestInput = z.input<typeof additionRequestSchema>;
 export type CalibrationRequestInput = z.input<typeof calibrationRequestSchema>;
+export type CapacityTestRequest = z.output<typeof capacityTestRequestSchema>;

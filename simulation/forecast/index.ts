@@ -1,2 +1,8 @@
 /** The forecast's public face: callers import from here (simulation/forecast). */
-export * from './session';
+export { createForecastSession, forecast, forecastParsed, type Forecast, type ForecastSession } from './session';
+export type { ForecastOptions } from './options';
+export type { ForecastSeries, ZoneSeries } from './series';
+export type { ForecastState } from './state';
+export type { ForecastReading } from './reading';
+export type { ForecastSummary } from './summary';
+export type { NitrogenBalance } from './balance';

@@ -7,6 +7,7 @@ import {
   epaAcuteTan,
   epaChronicTan,
   freeAmmoniaFraction,
+  freeAmmoniaMgNH3,
   oxygenSaturation,
   phFromCarbonate,
 } from '@/simulation/chemistry';
@@ -19,6 +20,13 @@ describe('free-ammonia fraction (Emerson et al. 1975)', () => {
     expectClose(freeAmmoniaFraction(25, 7.0), 0.00564, 0, 1.5e-6);
     expectClose(freeAmmoniaFraction(20, 8.0), 0.03807, 0, 5e-6);
     expectClose(freeAmmoniaFraction(28, 7.5), 0.02164, 0, 5e-6);
+  });
+
+  it('gives free ammonia as the molecule: mg N/L × fraction × 17.031/14.007 (molar masses, IUPAC)', () => {
+    // 2 mg TAN-N/L at 25 °C, pH 7.0: 2 × 0.00564 × 1.2159 ≈ 0.01372 mg NH3/L.
+    expectClose(freeAmmoniaMgNH3(2, 25, 7.0), 2 * freeAmmoniaFraction(25, 7.0) * (17.031 / 14.007), 1e-12, 0);
+    expectClose(freeAmmoniaMgNH3(2, 25, 7.0), 0.01372, 0, 2e-5);
+    expect(freeAmmoniaMgNH3(0, 25, 8)).toBe(0);
   });
 
   it('reproduces the UF/IFAS EDIS FA16 table to its 2 significant digits', () => {

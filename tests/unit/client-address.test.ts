@@ -3,7 +3,7 @@ import { loadConfig } from '../../server/config.js';
 import { addressBucket } from '../../server/middleware/client-address.js';
 import { describeTrustProxy } from '../../server/security/trust-proxy.js';
 
-const production = { NODE_ENV: 'production' as const, DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40) };
+const production = { NODE_ENV: 'production' as const, DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', APP_URL: 'https://shoalshift.example', SESSION_SECRET: 'x'.repeat(40), UNSUBSCRIBE_SECRET: 'u'.repeat(40) };
 const development = { NODE_ENV: 'development' as const, DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db' };
 
 describe('the address every limit counts', () => {

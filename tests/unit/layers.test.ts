@@ -2,6 +2,7 @@ import { readdirSync, readFileSync } from 'node:fs';
 import { dirname, join, relative, resolve, sep } from 'node:path';
 import ts from 'typescript';
 import { describe, expect, it } from 'vitest';
+import { ENGINE_PACKAGES } from '../../server/services/engine-version';
 
 /**
  * The layers: the engine (simulation/) at the bottom imports nothing else of the repo, so the
@@ -12,8 +13,8 @@ import { describe, expect, it } from 'vitest';
 
 const root = resolve(__dirname, '../..');
 const ENGINE = 'simulation';
-/** Packages the engine may use: pure computation, no I/O, nothing platform-specific. */
-const ENGINE_PACKAGES = ['zod', 'odex', 'ml-levenberg-marquardt', 'mathjs'];
+/** Packages the engine may use (pure computation, no I/O, nothing platform-specific): their versions are part of the engine's version. */
+const enginePackages: readonly string[] = ENGINE_PACKAGES;
 
 function sourceFiles(dir: string): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -44,7 +45,7 @@ function engineImportProblem(file: string, specifier: string): string | null {
     return specifier.startsWith(`@/${ENGINE}/`) ? null : `${file} imports ${specifier}, outside ${ENGINE}/`;
   }
   const name = specifier.startsWith('@') ? specifier.split('/').slice(0, 2).join('/') : specifier.split('/')[0];
-  return ENGINE_PACKAGES.includes(name) ? null : `${file} imports the package ${specifier}, not one the engine may use`;
+  return enginePackages.includes(name) ? null : `${file} imports the package ${specifier}, not one the engine may use`;
 }
 
 function engineProblems(files: { file: string; source: string }[]): string[] {
