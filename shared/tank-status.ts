@@ -1,24 +1,19 @@
 /**
  * Home-screen status of a tank (pure): the latest test judged against the tank's limits
- * (simulation/limits.ts `defaultLimits`), and the day the next test is due.
+ * (simulation/water-test.ts `judgeWaterTest`), and the day the next test is due.
  */
 import type { JudgedValue, LimitLevel, NextTest, PlanEvent, TankStatus } from './schemas/tank';
-import { defaultLimits } from '../simulation/limits';
+import { judgeWaterTest } from '../simulation/water-test';
 import { planCheckDays } from './plan-check-days';
 
-/** A value at or above this share of its limit is "watch" — Shoalshift's own margin, not a published one. */
-export const WATCH_SHARE = 0.5;
 /** Common practice: a settled tank is tested about weekly. */
 export const ROUTINE_TEST_INTERVAL_DAYS = 7;
 
 const DAY_MS = 86_400_000;
 const LEVEL_ORDER: readonly LimitLevel[] = ['ok', 'watch', 'over'];
 
-export function levelFor(value: number, limit: number): LimitLevel {
-  if (value > limit) return 'over';
-  if (value >= limit * WATCH_SHARE) return 'watch';
-  return 'ok';
-}
+/** The level rule and its margin live with the one judgement of a test (simulation/water-test.ts). */
+export { levelFor, WATCH_SHARE } from '../simulation/water-test';
 
 interface LatestValues {
   tanMgN: number | null;
@@ -28,25 +23,11 @@ interface LatestValues {
 }
 
 /**
- * Total ammonia is judged against the free-ammonia guideline expressed as TAN at the pH and
- * temperature of the test (the tank's own when the test has none): free ammonia is the toxic
- * part and it grows with both. Nitrite against the culture-practice limit. Nitrate has no
- * default limit in simulation/limits.ts and is not judged.
+ * The latest test as the home screen and readings table show it: simulation/water-test.ts
+ * `judgeWaterTest`, the same judgement the alert e-mails are worded from.
  */
 export function judgeLatest(latest: LatestValues, tank: { ph: number; temperatureC: number }): JudgedValue[] {
-  const ph = latest.ph ?? tank.ph;
-  const temperatureC = latest.temperatureC ?? tank.temperatureC;
-  const limits = defaultLimits({ ph: Math.min(10, Math.max(4, ph)), temperatureC: Math.min(40, Math.max(0, temperatureC)) });
-  const out: JudgedValue[] = [];
-  if (latest.tanMgN !== null) {
-    const l = limits.freeNh3AsTan;
-    out.push({ key: 'tanMgN', valueMgN: latest.tanMgN, level: levelFor(latest.tanMgN, l.value), limit: { ...l } });
-  }
-  if (latest.no2MgN !== null) {
-    const l = limits.nitrite;
-    out.push({ key: 'no2MgN', valueMgN: latest.no2MgN, level: levelFor(latest.no2MgN, l.value), limit: { ...l } });
-  }
-  return out;
+  return judgeWaterTest(latest, tank).judged.map(({ key, valueMgN, level, limit }) => ({ key, valueMgN, level, limit: { ...limit } }));
 }
 
 export function worstLevel(judged: readonly JudgedValue[]): LimitLevel | null {

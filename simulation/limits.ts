@@ -1,9 +1,10 @@
 /**
- * A tank's default safety limits, each with its basis and source, for the forecast summary
- * and the advice layer. The EPA criteria protect the most sensitive wild species and are
- * conservative for aquarium fish; they are shown as such. `tankLimits` adds a keeper's
- * adjustments (a sensitivity factor, values set for single limits): the one place per-tank
- * limits are made, for the engine's callers and the advice layer alike.
+ * A tank's safety limits, each with its basis and source. The EPA criteria protect the most
+ * sensitive wild species and are conservative for aquarium fish; they are shown as such.
+ * `tankLimits` is the ONE way any caller gets a tank's limits (the forecast summary, the
+ * advice layer, the water-test judgement behind the home screen and the alert e-mails):
+ * for given conditions, with the keeper's limit settings when there are any, without them for
+ * the defaults. `limitRecord` only reshapes its answer by key.
  */
 import {
   CCME_FREE_AMMONIA_MG_NH3,
@@ -12,6 +13,7 @@ import {
   epaChronicTan,
   freeAmmoniaFraction,
 } from './chemistry';
+import { formatFigure } from './format-number';
 import { MOLAR_MASS } from './units';
 
 export interface Limit {
@@ -60,7 +62,18 @@ export function freeAmmoniaLimitAsTan(limitMgNH3: number, ph: number, temperatur
   return (limitMgNH3 * MOLAR_MASS.N) / MOLAR_MASS.NH3 / freeAmmoniaFraction(temperatureC, ph);
 }
 
-export function defaultLimits(c: LimitConditions, choices: LimitChoices = {}): TankLimits {
+/** A free-ammonia limit (mg NH3/L, default or the keeper's) as the TAN limit at pH and temperature. */
+export function freeNh3LimitAsTan(l: Pick<Limit, 'value' | 'basis' | 'source'>, ph: number, temperatureC: number): Limit {
+  return {
+    value: freeAmmoniaLimitAsTan(l.value, ph, temperatureC),
+    unit: 'mg N/L',
+    basis: `${l.basis} as TAN at pH ${ph}, ${temperatureC} °C`,
+    source: `${l.source}; Emerson et al. (1975) free-ammonia fraction`,
+  };
+}
+
+/** The published defaults; callers go through `tankLimits`. */
+function defaultLimits(c: LimitConditions, choices: LimitChoices = {}): TankLimits {
   const eifac = choices.freeAmmoniaGuideline === 'eifac';
   const fa = eifac ? EIFAC_FREE_AMMONIA_MG_NH3 : CCME_FREE_AMMONIA_MG_NH3;
   const faSource = eifac ? 'EIFAC (1970) Technical Paper 11 (value recalled)' : 'CCME Canadian Water Quality Guidelines';
@@ -83,12 +96,7 @@ export function defaultLimits(c: LimitConditions, choices: LimitChoices = {}): T
   }
   return {
     freeNh3: { value: fa, unit: 'mg NH3/L', basis: 'free-ammonia guideline', source: faSource },
-    freeNh3AsTan: {
-      value: freeAmmoniaLimitAsTan(fa, c.ph, c.temperatureC),
-      unit: 'mg N/L',
-      basis: `free-ammonia guideline as TAN at pH ${c.ph}, ${c.temperatureC} °C`,
-      source: `${faSource}; Emerson et al. (1975) free-ammonia fraction`,
-    },
+    freeNh3AsTan: freeNh3LimitAsTan({ value: fa, basis: 'free-ammonia guideline', source: faSource }, c.ph, c.temperatureC),
     tanChronic: {
       value: epaChronicTan(c.ph, c.temperatureC),
       unit: 'mg N/L',
@@ -174,7 +182,7 @@ export function tankLimits(conditions: LimitConditionsInput, settings: LimitSett
     const adjusted = override !== undefined || factor !== 1;
     const basis =
       override !== undefined
-        ? `set for this tank (default ${formatValue(d.value)} ${d.unit}: ${d.basis})`
+        ? `set for this tank (default ${formatFigure(d.value)} ${d.unit}: ${d.basis})`
         : factor !== 1
           ? `${Math.round(factor * 100)} % of the default for sensitive fish; default: ${d.basis}`
           : d.basis;
@@ -182,7 +190,17 @@ export function tankLimits(conditions: LimitConditionsInput, settings: LimitSett
   });
 }
 
-/** Three significant digits, as the forecast reports. */
-export function formatValue(x: number): string {
-  return Number(x.toPrecision(3)).toString();
+/**
+ * `tankLimits`' answer by key, with the free-ammonia limit also as TAN at the conditions (the
+ * forecast summary's shape). Only the Limit fields are kept.
+ */
+export function limitRecord(applied: readonly AppliedLimit[], c: Pick<LimitConditions, 'ph' | 'temperatureC'>): TankLimits {
+  const at = (key: LimitKey): Limit => {
+    const l = applied.find((a) => a.key === key)!;
+    return { value: l.value, unit: l.unit, basis: l.basis, source: l.source };
+  };
+  return { freeNh3: at('freeNh3'), freeNh3AsTan: freeNh3LimitAsTan(at('freeNh3'), c.ph, c.temperatureC), tanChronic: at('tanChronic'), tanAcute: at('tanAcute'), nitrite: at('nitrite') };
 }
+
+/** A figure in the engine's sentences (simulation/format-number.ts `formatFigure`). */
+export const formatValue = formatFigure;

@@ -9,8 +9,8 @@ import { User } from '../entities/user.js';
 import { readingAlertMail } from '../mail/templates/reading-alert.js';
 import { runEngine } from '../services/engine-runs.js';
 import { scenarioFromPlan } from '../services/scenario-from-plan.js';
-import { freeAmmoniaMgNH3 } from '../../simulation/chemistry.js';
-import { defaultLimits } from '../../simulation/limits.js';
+import { formatConcentration, formatFigure } from '../../simulation/format-number.js';
+import { judgeWaterTest, type WaterTestJudgement } from '../../simulation/water-test.js';
 import { planDay, type JobDeps } from './reminders.js';
 import { sendOnce } from './send-once.js';
 
@@ -35,8 +35,6 @@ export const IMPORT_ALERT_MAX_LISTED = 3;
 export const FORECAST_FACTOR = 2;
 export const FORECAST_MARGIN_SHARE = 0.5;
 
-const fmt = (x: number) => (x >= 1 ? x.toFixed(2) : x.toPrecision(2));
-
 export interface ReadingValues {
   tanMgN: number | null;
   no2MgN: number | null;
@@ -44,27 +42,44 @@ export interface ReadingValues {
   temperatureC: number;
 }
 
-/** Findings against the default limits (simulation/limits.ts) at the reading's pH and temperature. */
-export function limitFindings(r: ReadingValues): string[] {
-  const limits = defaultLimits({ ph: r.ph, temperatureC: r.temperatureC });
+/**
+ * The one judgement of a reading (simulation/water-test.ts, the home screen's too) at its pH
+ * and temperature. The tank stores no limit settings of its own, so these are the defaults.
+ */
+export function judgeReading(r: ReadingValues): WaterTestJudgement {
+  return judgeWaterTest(r, { ph: r.ph, temperatureC: r.temperatureC });
+}
+
+/**
+ * The judgement's "over" values in words. Measured values read as a kit reads them
+ * (formatConcentration, as the readings table shows them); computed free ammonia and the
+ * limits as plain figures.
+ */
+export function limitFindings(r: ReadingValues, judgement: WaterTestJudgement = judgeReading(r)): string[] {
   const out: string[] = [];
-  if (r.tanMgN !== null) {
-    const freeNh3 = freeAmmoniaMgNH3(r.tanMgN, r.temperatureC, r.ph);
-    if (freeNh3 > limits.freeNh3.value)
-      out.push(`Free ammonia ${fmt(freeNh3)} mg NH3/L (from total ammonia ${fmt(r.tanMgN)} mg N/L at pH ${r.ph}, ${r.temperatureC} °C) is over the limit of ${limits.freeNh3.value} mg NH3/L.`);
+  for (const j of judgement.judged) {
+    if (j.level !== 'over') continue;
+    if (j.key === 'tanMgN') {
+      const fa = judgement.freeNh3!;
+      out.push(
+        `Free ammonia ${formatFigure(fa.valueMgNH3)} mg NH3/L (from total ammonia ${formatConcentration(j.valueMgN)} mg N/L at pH ${judgement.ph}, ${judgement.temperatureC} °C) is over the limit of ${formatFigure(fa.limitMgNH3)} mg NH3/L.`,
+      );
+    } else {
+      out.push(`Nitrite ${formatConcentration(j.valueMgN)} mg N/L is over the limit of ${formatFigure(j.limit.value)} mg N/L.`);
+    }
   }
-  if (r.no2MgN !== null && r.no2MgN > limits.nitrite.value)
-    out.push(`Nitrite ${fmt(r.no2MgN)} mg N/L is over the limit of ${limits.nitrite.value} mg N/L.`);
   return out;
 }
 
-/** Findings against the active plan's forecast on the reading's plan day. */
-export function forecastFindings(r: ReadingValues, forecastTan: number, forecastNo2: number, limitTan: number, limitNo2: number): string[] {
+/** Findings against the active plan's forecast on the reading's plan day; "far" is measured in shares of the judgement's limits. */
+export function forecastFindings(judgement: WaterTestJudgement, forecastTan: number, forecastNo2: number): string[] {
   const out: string[] = [];
-  const far = (value: number | null, expected: number, limit: number) =>
-    value !== null && value > FORECAST_FACTOR * expected && value - expected > FORECAST_MARGIN_SHARE * limit;
-  if (far(r.tanMgN, forecastTan, limitTan)) out.push(`Total ammonia ${fmt(r.tanMgN!)} mg N/L is far above the forecast of ${fmt(forecastTan)} mg N/L for that day.`);
-  if (far(r.no2MgN, forecastNo2, limitNo2)) out.push(`Nitrite ${fmt(r.no2MgN!)} mg N/L is far above the forecast of ${fmt(forecastNo2)} mg N/L for that day.`);
+  for (const j of judgement.judged) {
+    const expected = j.key === 'tanMgN' ? forecastTan : forecastNo2;
+    if (!(j.valueMgN > FORECAST_FACTOR * expected && j.valueMgN - expected > FORECAST_MARGIN_SHARE * j.limit.value)) continue;
+    const name = j.key === 'tanMgN' ? 'Total ammonia' : 'Nitrite';
+    out.push(`${name} ${formatConcentration(j.valueMgN)} mg N/L is far above the forecast of ${formatConcentration(expected)} mg N/L for that day.`);
+  }
   return out;
 }
 
@@ -72,6 +87,7 @@ export function forecastFindings(r: ReadingValues, forecastTan: number, forecast
 interface CheckedReading {
   reading: Reading;
   values: ReadingValues;
+  judgement: WaterTestJudgement;
 }
 
 const valuesOf = (reading: Reading, tank: Tank): ReadingValues => ({
@@ -96,12 +112,11 @@ async function activePlanFindings(ds: DataSource, tank: Tank, checked: readonly 
     scenario,
     horizonDays: Math.max(lastDay + 1, 2),
   });
-  checked.forEach(({ reading, values }, k) => {
+  checked.forEach(({ reading, judgement }, k) => {
     if (days[k] < 0) return;
     const i = series.days.findIndex((d) => d >= days[k]);
     if (i < 0) return;
-    const limits = defaultLimits({ ph: values.ph, temperatureC: values.temperatureC });
-    out.set(reading.id, forecastFindings(values, series.tanMgN[i], series.no2MgN[i], limits.freeNh3AsTan.value, limits.nitrite.value));
+    out.set(reading.id, forecastFindings(judgement, series.tanMgN[i], series.no2MgN[i]));
   });
   return out;
 }
@@ -112,7 +127,10 @@ async function activePlanFindings(ds: DataSource, tank: Tank, checked: readonly 
  * single logged test and for an import alike.
  */
 export async function readingFindings(ds: DataSource, logger: JobDeps['logger'], tank: Tank, readings: readonly Reading[]): Promise<Map<string, string[]>> {
-  const checked = readings.map((reading) => ({ reading, values: valuesOf(reading, tank) }));
+  const checked = readings.map((reading) => {
+    const values = valuesOf(reading, tank);
+    return { reading, values, judgement: judgeReading(values) };
+  });
   let forecast = new Map<string, string[]>();
   try {
     forecast = await activePlanFindings(ds, tank, checked);
@@ -121,8 +139,8 @@ export async function readingFindings(ds: DataSource, logger: JobDeps['logger'],
     logger.log('warn', 'jobs.alert_forecast_failed', { tankId: tank.id, readings: readings.length, error: String(err) });
   }
   const out = new Map<string, string[]>();
-  for (const { reading, values } of checked) {
-    const findings = [...limitFindings(values), ...(forecast.get(reading.id) ?? [])];
+  for (const { reading, values, judgement } of checked) {
+    const findings = [...limitFindings(values, judgement), ...(forecast.get(reading.id) ?? [])];
     if (findings.length > 0) out.set(reading.id, findings);
   }
   return out;

@@ -1,6 +1,6 @@
 /** The forecast's summary: peaks, days over each limit, the final capacities and the nitrogen balance. */
 import { epaAcuteTan, epaChronicTan } from '../chemistry';
-import { defaultLimits, type TankLimits } from '../limits';
+import { limitRecord, tankLimits, type TankLimits } from '../limits';
 import type { Model } from '../model';
 import type { ResolvedZone } from '../presets';
 import type { Tank } from '../scenario';
@@ -46,7 +46,8 @@ export function summarize(input: SummaryInput): ForecastSummary {
   const { tank, zones, model, series, eventPeaks, ledger, horizon, options } = input;
   const act = model.current;
   const ns = series.days.length;
-  const startLimits = defaultLimits({ ph: tank.ph, temperatureC: tank.temperatureC, chlorideMgL: tank.chlorideMgL }, options.limitChoices);
+  const start = { ph: tank.ph, temperatureC: tank.temperatureC, chlorideMgL: tank.chlorideMgL };
+  const startLimits = limitRecord(tankLimits(start, options.limitChoices), start);
   const fixed = options.limits ?? {};
   const chronic = limitSeries(series, fixed.tanChronicMgN, epaChronicTan);
   const acute = limitSeries(series, fixed.tanAcuteMgN, epaAcuteTan);

@@ -139,7 +139,7 @@ describe('alerts for logged readings', () => {
     await Promise.all([onReadingLogged(a, high), onReadingLogged(b, high), onReadingLogged(a, fine)]);
     const alerts = () => ctx.mail.messages().filter((m) => m.subject.startsWith('Water test alert'));
     expect(await settle(() => alerts().length, 1)).toBe(1);
-    expect(alerts()[0].text).toMatch(/Nitrite 0\.50 mg N\/L is over the limit of 0\.1 mg N\/L/);
+    expect(alerts()[0].text).toMatch(/Nitrite 0\.5 mg N\/L is over the limit of 0\.1 mg N\/L/);
     expect(alerts()[0].text).toContain('qualified aquatic veterinarian');
     expect(await ds.query(`SELECT key FROM mail_sends`)).toEqual([{ key: `alert:${high.id}` }]);
     expect(await failedJobs()).toEqual([]);
@@ -159,7 +159,7 @@ describe('alerts for logged readings', () => {
       await c.post(`/api/tanks/${tank.id}/readings`, { takenAt: new Date().toISOString(), basis: 'ion', no2: 1, ph: 7.2, temperatureC: 25 }).expect(201);
       const alerts = () => ctx.mail.messages().filter((m) => m.subject === 'Water test alert for Study 40 L');
       expect(await settle(() => alerts().length, 1)).toBe(1);
-      expect(alerts()[0].text).toMatch(/Nitrite 0\.30 mg N\/L is over the limit/);
+      expect(alerts()[0].text).toMatch(/Nitrite 0\.3 mg N\/L is over the limit/);
     } finally {
       ctx.deps.jobs = undefined;
     }
@@ -208,7 +208,7 @@ describe('alerts for imported readings (one e-mail per import at most)', () => {
       expect(await settle(() => alerts().length, 1)).toBe(1);
       const text = alerts()[0].text;
       expect(text).toContain('Of the water tests you imported for Landing 60 L');
-      expect(text).toContain(`Test of ${utcMinute(high)}: Nitrite 0.50 mg N/L is over the limit of 0.1 mg N/L.`);
+      expect(text).toContain(`Test of ${utcMinute(high)}: Nitrite 0.5 mg N/L is over the limit of 0.1 mg N/L.`);
       expect(text).not.toContain('0.80');
       expect(text.match(/^- /gm)).toHaveLength(1);
 
@@ -258,9 +258,9 @@ describe('alerts for imported readings (one e-mail per import at most)', () => {
     expect(mails).toHaveLength(1);
     const lines = mails[0].text.split('\n').filter((l) => l.startsWith('- '));
     expect(lines).toEqual([
-      `- Test of ${utcMinute(readings[0].takenAt)}: Nitrite 0.20 mg N/L is over the limit of 0.1 mg N/L.`,
-      `- Test of ${utcMinute(readings[1].takenAt)}: Nitrite 0.30 mg N/L is over the limit of 0.1 mg N/L.`,
-      `- Test of ${utcMinute(readings[2].takenAt)}: Nitrite 0.40 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- Test of ${utcMinute(readings[0].takenAt)}: Nitrite 0.2 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- Test of ${utcMinute(readings[1].takenAt)}: Nitrite 0.3 mg N/L is over the limit of 0.1 mg N/L.`,
+      `- Test of ${utcMinute(readings[2].takenAt)}: Nitrite 0.4 mg N/L is over the limit of 0.1 mg N/L.`,
       `- 2 earlier imported tests from the last ${IMPORT_ALERT_RECENT_DAYS} days also need attention.`,
     ]);
     // A job for another tank's readings finds none of them.

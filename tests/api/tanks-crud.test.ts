@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../shared/api-error.js';
 import { TANK_DEFAULTS, tankDetailSchema, tankListWithStatusSchema } from '../../shared/schemas/tank.js';
-import { defaultLimits } from '../../simulation/limits.js';
+import { limitRecord, tankLimits, type LimitConditions, type LimitChoices } from '../../simulation/limits.js';
+
+/** The tank's default limits by key, through the one picker. */
+const limitsAt = (c: LimitConditions, choices?: LimitChoices) => limitRecord(tankLimits(c, choices), c);
 import { Tank } from '../../server/entities/tank.js';
 import { createLivestock, createPlan, createReading, createTank, createUser } from './helpers/factories.js';
 import { signedInKeeper } from './helpers/keeper-client.js';
@@ -147,13 +150,13 @@ describe('GET /api/tanks status', () => {
     const [a, b, c] = tanks;
     expect(a.status.overall).toBe('ok');
     expect(a.status.judged.map((j) => j.key)).toEqual(['tanMgN', 'no2MgN']);
-    expect(a.status.judged[0].limit.value).toBeCloseTo(defaultLimits({ ph: 7.2, temperatureC: 25 }).freeNh3AsTan.value, 10);
+    expect(a.status.judged[0].limit.value).toBeCloseTo(limitsAt({ ph: 7.2, temperatureC: 25 }).freeNh3AsTan.value, 10);
     expect(a.status.nextTest).toEqual({ date: ymd(day(6)), reason: 'routine' });
 
     expect(b.status.overall).toBe('over');
     expect(b.status.judged[1]).toMatchObject({ key: 'no2MgN', level: 'over', valueMgN: 0.3, limit: { value: 0.1, unit: 'mg N/L' } });
     // The test's own pH and temperature set the free-ammonia limit (Emerson et al. 1975).
-    expect(b.status.judged[0].limit.value).toBeCloseTo(defaultLimits({ ph: 8.2, temperatureC: 28 }).freeNh3AsTan.value, 10);
+    expect(b.status.judged[0].limit.value).toBeCloseTo(limitsAt({ ph: 8.2, temperatureC: 28 }).freeNh3AsTan.value, 10);
     // The plan's first check day after the last test (its start, two days ago) was missed: overdue.
     expect(b.status.nextTest).toEqual({ date: ymd(day(-2)), reason: 'plan-check-day', detail: 'before the plan starts, to know the starting water' });
 

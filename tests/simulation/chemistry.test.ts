@@ -11,7 +11,10 @@ import {
   oxygenSaturation,
   phFromCarbonate,
 } from '@/simulation/chemistry';
-import { defaultLimits, freeAmmoniaLimitAsTan, nitriteLimitFromChloride } from '@/simulation/limits';
+import { freeAmmoniaLimitAsTan, limitRecord, nitriteLimitFromChloride, tankLimits, type LimitChoices, type LimitConditions } from '@/simulation/limits';
+
+/** The limits by key, through the one picker (simulation/limits.ts `tankLimits`). */
+const limitsAt = (c: LimitConditions, choices?: LimitChoices) => limitRecord(tankLimits(c, choices), c);
 import { expectClose, sig } from './helpers';
 
 describe('free-ammonia fraction (Emerson et al. 1975)', () => {
@@ -113,7 +116,7 @@ describe('limits', () => {
   });
 
   it('defaults to 0.1 mg N/L nitrite (Boyd) and states every basis and source', () => {
-    const limits = defaultLimits({ ph: 7, temperatureC: 20 });
+    const limits = limitsAt({ ph: 7, temperatureC: 20 });
     expect(limits.nitrite.value).toBe(0.1);
     expect(limits.freeNh3.value).toBe(0.019);
     expectClose(limits.tanChronic.value, 1.887, 0, 0.0005); // EPA 2013 at pH 7, 20 °C
@@ -121,10 +124,10 @@ describe('limits', () => {
       expect(limit.source.length).toBeGreaterThan(5);
       expect(limit.basis.length).toBeGreaterThan(5);
     }
-    const eifac = defaultLimits({ ph: 7, temperatureC: 20 }, { freeAmmoniaGuideline: 'eifac' });
+    const eifac = limitsAt({ ph: 7, temperatureC: 20 }, { freeAmmoniaGuideline: 'eifac' });
     expect(eifac.freeNh3.value).toBe(0.025); // EIFAC 1970 (value from memory)
-    const chloride = defaultLimits({ ph: 7, temperatureC: 20, chlorideMgL: 20 }, { nitriteBasis: 'chloride' });
+    const chloride = limitsAt({ ph: 7, temperatureC: 20, chlorideMgL: 20 }, { nitriteBasis: 'chloride' });
     expectClose(chloride.nitrite.value, nitriteLimitFromChloride(20), 1e-15);
-    expect(() => defaultLimits({ ph: 7, temperatureC: 20 }, { nitriteBasis: 'chloride' })).toThrow(/chlorideMgL/);
+    expect(() => limitsAt({ ph: 7, temperatureC: 20 }, { nitriteBasis: 'chloride' })).toThrow(/chlorideMgL/);
   });
 });

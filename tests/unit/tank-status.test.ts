@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { judgeLatest, levelFor, nextTestDue, ROUTINE_TEST_INTERVAL_DAYS, tankStatus, WATCH_SHARE } from '@/shared/tank-status';
-import { defaultLimits, NITRITE_PRACTICE_LIMIT_MG_N } from '@/simulation/limits';
+import { limitRecord, NITRITE_PRACTICE_LIMIT_MG_N, tankLimits, type LimitConditions } from '@/simulation/limits';
+
+const limitsAt = (c: LimitConditions) => limitRecord(tankLimits(c), c);
 
 const NOW = new Date('2026-03-10T15:00:00Z');
 
@@ -19,7 +21,7 @@ describe('judgeLatest', () => {
     const judged = judgeLatest({ tanMgN: 2, no2MgN: 0.3, ph: null, temperatureC: null }, { ph: 8, temperatureC: 28 });
     expect(judged[1]).toMatchObject({ key: 'no2MgN', level: 'over', limit: { value: NITRITE_PRACTICE_LIMIT_MG_N } });
     // The tank's pH and temperature stand in for the test's missing ones.
-    const limit = defaultLimits({ ph: 8, temperatureC: 28 }).freeNh3AsTan.value;
+    const limit = limitsAt({ ph: 8, temperatureC: 28 }).freeNh3AsTan.value;
     expect(judged[0].limit.value).toBeCloseTo(limit, 12);
     expect(judged[0].level).toBe(2 > limit ? 'over' : 2 >= limit / 2 ? 'watch' : 'ok');
   });

@@ -115,7 +115,7 @@ describe('describeBandChange (the one wording of how the fit moves the band)', (
 
   it('says "widens" when the calibrated band is wider (issue 14: it said "narrows from 0.309 to 3.42")', () => {
     const s = describeBandChange({ prior: 0.309, calibrated: 3.42 }, { prior: 0.2, calibrated: 0.201 });
-    expect(s).toMatch(/^With the fit, the band for total ammonia widens \(average width from 0\.309 to 3\.42 mg N\/L\) and the band for nitrite stays about as wide/);
+    expect(s).toMatch(/^With the fit, the band for total ammonia widens \(average width from 0\.31 to 3\.4 mg N\/L\) and the band for nitrite stays about as wide/);
     expect(s).not.toMatch(/narrows/);
     expect(s).toMatch(/less sure/);
   });
