@@ -31,26 +31,8 @@ export function shortDate(then: string | Date, locale?: string): string {
   return new Intl.DateTimeFormat(locale, { day: 'numeric', month: 'short', year: 'numeric' }).format(t);
 }
 
-/**
- * A concentration in mg/L for reading at a glance: two decimals below 1 (test kits step in
- * 0.25 mg/L there), one decimal below 10, whole numbers above. Null means "not tested": "—".
- */
-export function formatMgPerL(value: number | null): string {
-  if (value === null || !Number.isFinite(value)) return '—';
-  const abs = Math.abs(value);
-  const digits = abs < 1 ? 2 : abs < 10 ? 1 : 0;
-  return value.toFixed(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
-}
-
-/** Litres with at most one decimal: "120 L", "7.5 L". */
-export function formatLitres(value: number): string {
-  return `${Number.isInteger(value) ? value : value.toFixed(1).replace(/\.0$/, '')} L`;
-}
-
-/** "25 °C", "24.5 °C". */
-export function formatCelsius(value: number): string {
-  return `${Number.isInteger(value) ? value : value.toFixed(1).replace(/\.0$/, '')} °C`;
-}
+/** Concentration, litres and °C: one formatter per kind of figure, in simulation/format-number.ts. */
+export { formatCelsius, formatLitres, formatConcentration as formatMgPerL } from '@/simulation/format-number';
 
 /** A wait in words, rounded up: "30 seconds", "1 minute", "15 minutes", "2 hours". */
 export function formatWait(seconds: number): string {

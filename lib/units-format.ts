@@ -7,13 +7,10 @@
 import { fromMgN, ION_OF, toMgN, type NitrogenKey } from '@/shared/schemas/reading';
 import type { NitrogenBasis, TemperatureUnit, UnitPreferences, VolumeUnit } from '@/shared/schemas/preferences';
 import { celsiusToFahrenheit, fahrenheitToCelsius, litresToUsGallons, usGallonsToLitres } from '@/simulation/units';
-import { formatMgPerL } from '@/lib/format';
+import { formatConcentration as formatMgPerL, formatTemperatureFigure, formatVolumeFigure, trimDecimals } from '@/simulation/format-number';
 
-/** At most `digits` decimals, trailing zeros dropped: 31.70 → "31.7", 77.00 → "77". */
-export function trimNumber(value: number, digits: number): string {
-  const fixed = value.toFixed(digits);
-  return fixed.includes('.') ? fixed.replace(/0+$/, '').replace(/\.$/, '') : fixed;
-}
+/** At most `digits` decimals, trailing zeros dropped (simulation/format-number.ts): for edit fields. */
+export const trimNumber = trimDecimals;
 
 export const VOLUME_UNIT_LABEL: Record<VolumeUnit, string> = { L: 'L', USgal: 'US gal' };
 export const TEMPERATURE_UNIT_LABEL: Record<TemperatureUnit, string> = { C: '°C', F: '°F' };
@@ -25,7 +22,7 @@ export function volumeIn(litres: number, unit: VolumeUnit): number {
 
 /** "120 L" or "31.7 US gal". */
 export function formatVolume(litres: number, unit: VolumeUnit): string {
-  return `${trimNumber(volumeIn(litres, unit), 1)} ${VOLUME_UNIT_LABEL[unit]}`;
+  return `${formatVolumeFigure(volumeIn(litres, unit))} ${VOLUME_UNIT_LABEL[unit]}`;
 }
 
 export function temperatureIn(celsius: number, unit: TemperatureUnit): number {
@@ -34,7 +31,7 @@ export function temperatureIn(celsius: number, unit: TemperatureUnit): number {
 
 /** "25 °C" or "77 °F". */
 export function formatTemperature(celsius: number, unit: TemperatureUnit): string {
-  return `${trimNumber(temperatureIn(celsius, unit), 1)} ${TEMPERATURE_UNIT_LABEL[unit]}`;
+  return `${formatTemperatureFigure(temperatureIn(celsius, unit))} ${TEMPERATURE_UNIT_LABEL[unit]}`;
 }
 
 /** Short unit of a nitrogen value: "mg/L as N", or the ion ("mg/L NH4+", "mg/L NO2−", "mg/L NO3−"). */

@@ -50,13 +50,9 @@ export function forecastView(f: Forecast, band: EnsembleBand | null = null, memb
 
 // ---- words ------------------------------------------------------------------------------
 
-/** A number as a keeper reads it: 2 significant digits below 10, whole numbers above. */
-export function plainNumber(x: number): string {
-  if (!Number.isFinite(x)) return '–';
-  if (Math.abs(x) >= 10) return String(Math.round(x));
-  if (x === 0) return '0';
-  return String(Number(x.toPrecision(2)));
-}
+/** A plain figure in a sentence (simulation/format-number.ts `formatFigure`, the engine's too). */
+export { formatFigure as plainNumber } from '../simulation/format-number';
+import { formatFigure as plainNumber } from '../simulation/format-number';
 
 const dayWord = (d: number) => `day ${Math.round(d)}`;
 const daysWord = (d: number) => (Math.round(d) === 1 ? '1 day' : `${plainNumber(d)} days`);

@@ -46,9 +46,5 @@ export function scoreGuess(guess: PeakPoint, peak: PeakPoint): GuessScore {
   return { closeness, dayError, heightRatio, headline, detail: `You were ${when} and ${height}.` };
 }
 
-/** A value rounded for display, e.g. 0.64 → "0.64", 0.064 → "0.064". */
-export function shortValue(x: number): string {
-  if (x >= 10) return x.toFixed(0);
-  if (x >= 1) return x.toFixed(1);
-  return x.toPrecision(2).replace(/0+$/, '').replace(/\.$/, '');
-}
+/** A value rounded for display, e.g. 0.64 → "0.64", 0.064 → "0.064" (the one plain-figure formatter). */
+export { formatFigure as shortValue } from '@/simulation/format-number';

@@ -1,6 +1,7 @@
 import { TANK_DEFAULTS, type LimitLevel, type LivestockItem, type NextTest, type PlanEvent, type PlanStatus, type TankSetup } from '@/shared/schemas/tank';
 import type { AerationLevel, MediaType } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
+import { formatLitres } from '@/simulation/format-number';
 import type { StatusTone } from '@/constants/theme';
 
 /** The three nitrogen values a keeper tests, in the order the nitrogen cycle runs. */
@@ -62,14 +63,13 @@ const aerationNames: Record<AerationLevel, string> = {
   strong: 'strong',
 };
 
-const litres = (v: number) => `${Number.isInteger(v) ? v : v.toFixed(1)} L`;
 
 /** One short line per part of the setup that is filled in; nothing for parts left out. */
 export function setupLines(setup: TankSetup): string[] {
   const lines: string[] = [];
   if (setup.filter) {
     const { kind, media, mediaVolumeL, surfaceSkimmer } = setup.filter;
-    const mediaText = media ? `${litres(mediaVolumeL)} of ${mediaNames[media]}` : `${litres(mediaVolumeL)} of media`;
+    const mediaText = media ? `${formatLitres(mediaVolumeL)} of ${mediaNames[media]}` : `${formatLitres(mediaVolumeL)} of media`;
     lines.push(`${filterNames[kind]}, ${mediaText}${surfaceSkimmer ? ', surface skimmer' : ''}`);
   }
   if (setup.substrate === 'bare') lines.push('Bare bottom');

@@ -7,7 +7,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { judgeLatest } from '@/shared/tank-status';
-import { judgeReading, limitFindings } from '@/server/jobs/alerts';
+import { judgeReading, limitFindings } from '@/server/jobs/alert-findings';
 import { freeAmmoniaMgNH3 } from '@/simulation/chemistry';
 import { judgeWaterTest, levelFor } from '@/simulation/water-test';
 import { tankLimits } from '@/simulation/limits';
