@@ -45,6 +45,8 @@ export interface Server {
 }
 
 export const SESSION_SECRET = randomBytes(48).toString('base64url');
+/** Production requires its own unsubscribe key, different from the session secret. */
+const UNSUBSCRIBE_SECRET = randomBytes(48).toString('base64url');
 
 /** The real server (server/index.ts) in its own process, production settings, on 127.0.0.1. */
 export async function startServer(port: number, databaseUrl: string, extraEnv: Record<string, string> = {}): Promise<Server> {
@@ -67,6 +69,7 @@ export async function startServer(port: number, databaseUrl: string, extraEnv: R
       HOST: '127.0.0.1',
       APP_URL: `https://127.0.0.1:${port}`,
       SESSION_SECRET,
+      UNSUBSCRIBE_SECRET,
       STATIC_DIR: staticDir,
       // Nothing listens there: no bench step sends mail (override when 2631 is taken).
       SMTP_PORT: process.env.BENCH_SMTP_PORT ?? '2631',
