@@ -11,7 +11,7 @@ import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRol
 import { createInvite, listPendingInvites, revokeInvite } from '../services/invites.js';
 import { scenarioFromPlanOrNull } from '../services/scenario-from-plan.js';
 import { getOwnTank } from '../services/tanks.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 const ANY_ROLE = ['organizer', 'mentor', 'member'] as const;
 

@@ -6,7 +6,7 @@ import { validateBody, validBody } from '../middleware/validate.js';
 import { requestDb } from '../middleware/request-db.js';
 import { addComment, listComments, visibleShare } from '../services/club-shares.js';
 import { requireClubRole } from '../services/clubs.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 /** /api/clubs/:clubId/shares/:shareId/comments — the owner reads; mentors and organizers also write. */
 export function commentsRouter({ dataSource: ds, config }: AppDeps): Router {

@@ -8,7 +8,7 @@ import { requestDb } from '../middleware/request-db.js';
 import { requireClubRole } from '../services/clubs.js';
 import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail, updateLessonText } from '../services/lessons.js';
 import { Lesson } from '../entities/lesson.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 /** /api/lessons: the lessons of the caller's clubs; read, reword, delete. */
 export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {

@@ -8,7 +8,7 @@ import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
 import { requestDb, storeAnswerAs } from '../middleware/request-db.js';
 import { createShareLink, listShareLinks, revokeShareLink, sharedView } from '../services/share-links.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 const listQuery = z.object({ itemType: shareableTypeSchema, itemId: z.string().uuid() });
 const TOKEN = /^[A-Za-z0-9_-]{43}$/;
