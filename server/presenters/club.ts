@@ -1,8 +1,14 @@
-import type { ClubDetail, ClubShare, SharedItemDetail } from '../../shared/schemas/club.js';
+import type { ClubDetail, ClubShare, ClubSummary, SharedItemDetail } from '../../shared/schemas/club.js';
 import type { ClubMembership } from '../entities/club-membership.js';
 import type { ShareRow, SharedItemRows } from '../services/club-shares.js';
+import type { MyClubRow } from '../services/clubs.js';
 import { presentComment } from './comment.js';
 import { presentPlan, presentTankDetail } from './tank.js';
+
+/** One of the caller's clubs in their list. */
+export function presentClubSummary(r: MyClubRow): ClubSummary {
+  return { id: r.id, name: r.name, myRole: r.role, memberCount: Number(r.count) };
+}
 
 /** A club as its members see it: names and roles, never e-mail addresses. */
 export function presentClub(membership: ClubMembership, members: ClubMembership[]): ClubDetail {

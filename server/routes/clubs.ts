@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { createClubSchema, createInviteSchema, createShareSchema, memberRoleSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
-import { AppError, conflict } from '../errors.js';
+import { AppError } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { afterCommit, requestDb } from '../middleware/request-db.js';
-import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
+import { presentClub, presentClubSummary, presentShare, presentSharedItem } from '../presenters/club.js';
 import { presentCreatedInvite, presentPendingInvite } from '../presenters/invite.js';
 import { listShares, shareWithClub, sharedItemDetail, unshare } from '../services/club-shares.js';
-import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRole, setMemberRole } from '../services/clubs.js';
+import { createClub, endMembership, listClubMembers, listMyClubs, removeMember, requireClubRole, setMemberRole } from '../services/clubs.js';
 import { createInvite, listPendingInvites, revokeInvite } from '../services/invites.js';
 import { idParam } from './params.js';
 
@@ -25,7 +25,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
     requireClubRole(ds, currentUser(req).id, idParam(req, 'clubId', 'club'), roles);
 
   router.get('/', auth, async (req, res) => {
-    res.json({ clubs: await listMyClubs(ds, currentUser(req).id) });
+    res.json({ clubs: (await listMyClubs(ds, currentUser(req).id)).map(presentClubSummary) });
   });
 
   router.post('/', auth, validateBody(createClubSchema), async (req, res) => {
@@ -78,9 +78,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
 
   router.delete('/:clubId/members/:userId', auth, async (req, res) => {
     const membership = await member(req, ['organizer']);
-    const target = idParam(req, 'userId', 'member');
-    if (target === membership.userId) throw conflict('To leave the club yourself, use Leave club.');
-    await endMembership(ds, membership.clubId, target);
+    await removeMember(ds, membership, idParam(req, 'userId', 'member'));
     res.status(204).end();
   });
 
