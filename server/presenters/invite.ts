@@ -1,5 +1,5 @@
 import type { z } from 'zod';
-import type { acceptInviteResultSchema, InvitePreview, PendingInvite } from '../../shared/schemas/club.js';
+import type { acceptInviteResultSchema, inviteSchema, InvitePreview, PendingInvite } from '../../shared/schemas/club.js';
 import type { ClubInvite } from '../entities/club-invite.js';
 import type { AcceptedInvite, InviteOnShow, PendingInviteRow } from '../services/invites.js';
 
@@ -7,7 +7,7 @@ import type { AcceptedInvite, InviteOnShow, PendingInviteRow } from '../services
 const FORMER_ORGANIZER = 'An organizer';
 
 /** The answer to sending an invite: never the token or its hash. */
-export function presentCreatedInvite(invite: ClubInvite): { id: string; email: string; expiresAt: string } {
+export function presentCreatedInvite(invite: ClubInvite): z.infer<typeof inviteSchema> {
   return { id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() };
 }
 
