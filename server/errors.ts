@@ -36,8 +36,28 @@ export const notFound = (message = 'Not found.') => new AppError(404, 'not_found
 export const conflict = (message: string, fields?: Record<string, string>) => new AppError(409, 'conflict', message, fields);
 export const unprocessable = (message: string) => new AppError(422, 'unprocessable', message);
 export const payloadTooLarge = () => new AppError(413, 'payload_too_large', 'The request body is too large.');
-export const unsupportedMediaType = () =>
-  new AppError(415, 'unsupported_media_type', 'Send the request body as JSON (Content-Type: application/json).');
+export const unsupportedMediaType = (message = 'Send the request body as JSON (Content-Type: application/json).') =>
+  new AppError(415, 'unsupported_media_type', message);
+/** A file with more rows than one upload may hold (`fields` names the file). */
+export const tooManyRows = (message: string, fields: Record<string, string>) => new AppError(422, 'too_many_rows', message, fields);
+/** An import refused as a whole; `fields` names the rows at fault. */
+export const importRejected = (message: string, fields: Record<string, string>) => new AppError(422, 'import_rejected', message, fields);
+/** The same Idempotency-Key is still being answered (or its answer is not readable yet). */
+export const idempotencyInProgress = (message = 'A request with this Idempotency-Key is still running. Retry shortly.') =>
+  new AppError(409, 'in_progress', message, undefined, { 'Retry-After': '1' });
+export const idempotencyKeyReused = () =>
+  new AppError(422, 'idempotency_key_reused', 'This Idempotency-Key was already used for a different request.');
+const ENGINE_SMALLER_REQUEST = 'Ask for fewer members, a shorter horizon or fewer repeated events.';
+export const engineBusy = () =>
+  new AppError(503, 'engine_busy', 'The forecast engine is busy. Try again in a few seconds.', undefined, { 'Retry-After': '5' });
+export const engineTimeLimit = (taskMs: number) =>
+  new AppError(
+    422,
+    'engine_time_limit',
+    `This took longer than the ${Math.round(taskMs / 1000)} s the engine allows one request and was stopped. ${ENGINE_SMALLER_REQUEST}`,
+  );
+export const engineMemoryLimit = () =>
+  new AppError(422, 'engine_memory_limit', `This needed more memory than the engine allows one request and was stopped. ${ENGINE_SMALLER_REQUEST}`);
 export const tooManyRequests = (retryAfterSeconds: number, message = 'Too many attempts. Try again later.') =>
   new AppError(429, 'too_many_requests', message, undefined, { 'Retry-After': String(Math.max(1, Math.ceil(retryAfterSeconds))) });
 export const serviceUnavailable = (retryAfterSeconds = 5) =>

@@ -2,7 +2,7 @@ import { createHash } from 'node:crypto';
 import type { RequestHandler, Response } from 'express';
 import type { DataSource, QueryRunner } from 'typeorm';
 import { createDataSource } from '../data-source.js';
-import { AppError, badRequest, serviceUnavailable } from '../errors.js';
+import { badRequest, idempotencyInProgress, idempotencyKeyReused, serviceUnavailable } from '../errors.js';
 import type { Logger } from '../logger.js';
 import { bindKeyedTransaction, type KeyedTransaction } from './request-db.js';
 
@@ -122,7 +122,7 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
     } catch (err) {
       await rollback();
       if (err && typeof err === 'object' && (err as { code?: string }).code === '55P03') {
-        return next(new AppError(409, 'in_progress', 'A request with this Idempotency-Key is still running. Retry shortly.', undefined, { 'Retry-After': '1' }));
+        return next(idempotencyInProgress());
       }
       return next(err);
     }
@@ -134,9 +134,9 @@ export function createIdempotency(databaseUrl: string, logger: Logger) {
           [scope, key],
         );
         const row = rows[0];
-        if (!row) return nextFn(new AppError(409, 'in_progress', 'Retry this request.', undefined, { 'Retry-After': '1' }));
+        if (!row) return nextFn(idempotencyInProgress('Retry this request.'));
         if (row.fingerprint !== fingerprint) {
-          return nextFn(new AppError(422, 'idempotency_key_reused', 'This Idempotency-Key was already used for a different request.'));
+          return nextFn(idempotencyKeyReused());
         }
         response.set(REPLAYED_HEADER, 'true');
         if (row.body === null) return void response.status(row.status).end();

@@ -16,18 +16,25 @@ export function requireAuth(ds: DataSource, config: Config): RequestHandler {
   return async (req, _res, next) => {
     const { userId, createdAt } = req.session ?? {};
     if (!userId || !createdAt) return next(unauthorized());
-    if (Date.now() - createdAt > config.session.absoluteSeconds * 1000) {
-      await destroySession(req);
-      return next(unauthorized('Your session has ended. Sign in again.'));
-    }
-    const user = await ds.getRepository(User).findOneBy({ id: userId });
-    if (!user || user.passwordChangedAt.getTime() > createdAt) {
+    const user = await liveSessionUser(ds, config, req);
+    if (!user) {
       await destroySession(req);
       return next(unauthorized('Your session has ended. Sign in again.'));
     }
     (req as WithUser)[USER] = user;
     next();
   };
+}
+
+/**
+ * The user of a live session (the rules `requireAuth` applies: within the absolute timeout, begun
+ * after the user's last password change), or null; ends nothing, for routes open to both.
+ */
+export async function liveSessionUser(ds: DataSource, config: Config, req: Request): Promise<User | null> {
+  const { userId, createdAt } = req.session ?? {};
+  if (!userId || !createdAt || Date.now() - createdAt > config.session.absoluteSeconds * 1000) return null;
+  const user = await ds.getRepository(User).findOneBy({ id: userId });
+  return user && user.passwordChangedAt.getTime() <= createdAt ? user : null;
 }
 
 /** The user `requireAuth` loaded for this request. */

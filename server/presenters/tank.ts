@@ -1,9 +1,9 @@
-import type { LivestockItem, PlanItem, ReadingItem, TankDetail, TankSummary, TankSummaryWithStatus } from '../../shared/schemas/tank.js';
+import type { PlanItem, TankDetail, TankSummary, TankSummaryWithStatus } from '../../shared/schemas/tank.js';
 import { tankStatus } from '../../shared/tank-status.js';
-import type { Livestock } from '../entities/livestock.js';
 import type { Plan } from '../entities/plan.js';
-import type { Reading } from '../entities/reading.js';
 import type { TankDetailRows, TankSummaryRow } from '../services/tanks.js';
+import { presentLivestock } from './livestock.js';
+import { presentReading } from './reading.js';
 
 export function presentTankSummary(row: TankSummaryRow): TankSummary {
   const { tank, latestReading: r, activePlan: p } = row;
@@ -24,25 +24,6 @@ export function presentTankSummary(row: TankSummaryRow): TankSummary {
 export function presentTankSummaryWithStatus(row: TankSummaryRow, now: Date): TankSummaryWithStatus {
   const { tank, latestReading: r, activePlan: p } = row;
   return { ...presentTankSummary(row), status: tankStatus(tank, r, p ? { startDate: p.startDate, events: p.events } : null, now) };
-}
-
-export function presentLivestock(l: Livestock): LivestockItem {
-  return { id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm };
-}
-
-export function presentReading(r: Reading): ReadingItem {
-  return {
-    id: r.id,
-    takenAt: r.takenAt.toISOString(),
-    tanMgN: r.tanMgN,
-    no2MgN: r.no2MgN,
-    no3MgN: r.no3MgN,
-    ph: r.ph,
-    temperatureC: r.temperatureC,
-    khDkh: r.khDkh,
-    basis: r.basis,
-    note: r.note ?? '',
-  };
 }
 
 export function presentPlan(p: Plan): PlanItem {

@@ -12,7 +12,7 @@ import { engineCaller } from '../middleware/engine-caller.js';
 import { requireAuth } from '../middleware/require-auth.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { additionAdvice, calibrationAdvice, capacityTestAdvice, ensembleAdvice, removalAdvice, rescueAdvice } from '../services/advice.js';
-import { ownTankParam } from './plans.js';
+import { ownTankParam } from './params.js';
 
 /** Advice, ensemble, calibration and capacity-test routes on a saved tank (mounted on /api). */
 export function adviceRouter(deps: AppDeps): Router {

@@ -1,17 +1,16 @@
 import { Router } from 'express';
 import { createClubSchema, createInviteSchema, createShareSchema, memberRoleSchema } from '../../shared/schemas/club.js';
 import type { AppDeps } from '../deps.js';
-import { AppError, conflict, notFound } from '../errors.js';
+import { AppError } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { afterCommit, requestDb } from '../middleware/request-db.js';
-import { presentClub, presentShare, presentSharedItem } from '../presenters/club.js';
-import { listComments, listShares, loadSharedItem, shareItem, unshare, visibleShare } from '../services/club-shares.js';
-import { createClub, endMembership, listClubMembers, listMyClubs, requireClubRole, setMemberRole } from '../services/clubs.js';
+import { presentClub, presentClubSummary, presentShare, presentSharedItem } from '../presenters/club.js';
+import { presentCreatedInvite, presentPendingInvite } from '../presenters/invite.js';
+import { listShares, shareWithClub, sharedItemDetail, unshare } from '../services/club-shares.js';
+import { createClub, endMembership, listClubMembers, listMyClubs, removeMember, requireClubRole, setMemberRole } from '../services/clubs.js';
 import { createInvite, listPendingInvites, revokeInvite } from '../services/invites.js';
-import { scenarioFromPlanOrNull } from '../services/scenario-from-plan.js';
-import { getOwnTank } from '../services/tanks.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 const ANY_ROLE = ['organizer', 'mentor', 'member'] as const;
 
@@ -26,7 +25,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
     requireClubRole(ds, currentUser(req).id, idParam(req, 'clubId', 'club'), roles);
 
   router.get('/', auth, async (req, res) => {
-    res.json({ clubs: await listMyClubs(ds, currentUser(req).id) });
+    res.json({ clubs: (await listMyClubs(ds, currentUser(req).id)).map(presentClubSummary) });
   });
 
   router.post('/', auth, validateBody(createClubSchema), async (req, res) => {
@@ -54,12 +53,12 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
     });
     // Once the invite is committed: a rolled-back attempt mails nothing, a replay mails nothing again.
     await afterCommit(req, () => background.run('club-invite-mail', send));
-    res.status(201).json({ id: invite.id, email: invite.email, expiresAt: invite.expiresAt.toISOString() });
+    res.status(201).json(presentCreatedInvite(invite));
   });
 
   router.get('/:clubId/invites', auth, async (req, res) => {
     const membership = await member(req, ['organizer']);
-    res.json({ invites: await listPendingInvites(ds, membership.clubId) });
+    res.json({ invites: (await listPendingInvites(ds, membership.clubId)).map(presentPendingInvite) });
   });
 
   // Only a pending invite can be revoked: revoking it again answers 404 (see revokeInvite).
@@ -79,9 +78,7 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
 
   router.delete('/:clubId/members/:userId', auth, async (req, res) => {
     const membership = await member(req, ['organizer']);
-    const target = idParam(req, 'userId', 'member');
-    if (target === membership.userId) throw conflict('To leave the club yourself, use Leave club.');
-    await endMembership(ds, membership.clubId, target);
+    await removeMember(ds, membership, idParam(req, 'userId', 'member'));
     res.status(204).end();
   });
 
@@ -92,36 +89,20 @@ export function clubsRouter({ dataSource: ds, config, mailer, logger, background
   });
 
   router.get('/:clubId/shares', auth, async (req, res) => {
-    res.json({ shares: await listShares(ds, await member(req)) });
+    const membership = await member(req);
+    res.json({ shares: (await listShares(ds, membership)).map((row) => presentShare(row, membership.userId)) });
   });
 
   router.post('/:clubId/shares', auth, validateBody(createShareSchema), async (req, res) => {
     const membership = await member(req);
     const { itemType, itemId } = validBody(req, createShareSchema);
-    const db = requestDb(req, ds);
-    const share = await shareItem(db, membership.clubId, membership.userId, itemType, itemId);
-    const listed = (await listShares(db, membership)).find((s) => s.id === share.id);
-    if (!listed) throw notFound('No such shared item.');
-    res.status(201).json(listed);
+    const listed = await shareWithClub(requestDb(req, ds), membership, itemType, itemId);
+    res.status(201).json(presentShare(listed, membership.userId));
   });
 
   router.get('/:clubId/shares/:shareId', auth, async (req, res) => {
     const membership = await member(req);
-    const share = await visibleShare(ds, membership, idParam(req, 'shareId', 'shared item'));
-    const { tankId, plan } = await loadSharedItem(ds, share);
-    const rows = await getOwnTank(ds, share.ownerId, tankId);
-    if (!rows) throw notFound('No such shared item.');
-    const listed = (await listShares(ds, membership)).find((s) => s.id === share.id);
-    if (!listed) throw notFound('No such shared item.');
-    res.json(
-      presentSharedItem({
-        share: presentShare(listed),
-        rows,
-        plan,
-        scenario: plan ? scenarioFromPlanOrNull(rows.tank, rows.livestock, plan) : null,
-        comments: await listComments(ds, share),
-      }),
-    );
+    res.json(presentSharedItem(await sharedItemDetail(ds, membership, idParam(req, 'shareId', 'shared item')), membership.userId));
   });
 
   router.delete('/:clubId/shares/:shareId', auth, async (req, res) => {

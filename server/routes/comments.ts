@@ -4,9 +4,10 @@ import type { AppDeps } from '../deps.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { requestDb } from '../middleware/request-db.js';
-import { addComment, listComments, visibleShare } from '../services/club-shares.js';
+import { presentComment } from '../presenters/comment.js';
+import { commentOnShare, listComments, visibleShare } from '../services/club-shares.js';
 import { requireClubRole } from '../services/clubs.js';
-import { idParam } from './club-params.js';
+import { idParam } from './params.js';
 
 /** /api/clubs/:clubId/shares/:shareId/comments — the owner reads; mentors and organizers also write. */
 export function commentsRouter({ dataSource: ds, config }: AppDeps): Router {
@@ -19,15 +20,13 @@ export function commentsRouter({ dataSource: ds, config }: AppDeps): Router {
 
   router.get('/', auth, async (req, res) => {
     const { share } = await load(req);
-    res.json({ comments: await listComments(ds, share) });
+    res.json({ comments: (await listComments(ds, share)).map(presentComment) });
   });
 
   router.post('/', auth, validateBody(createCommentSchema), async (req, res) => {
     const { membership, share } = await load(req);
-    const db = requestDb(req, ds);
-    const comment = await addComment(db, membership, share, validBody(req, createCommentSchema).body);
-    const listed = (await listComments(db, share)).find((c) => c.id === comment.id);
-    res.status(201).json(listed);
+    const comment = await commentOnShare(requestDb(req, ds), membership, share, validBody(req, createCommentSchema).body);
+    res.status(201).json(presentComment(comment));
   });
 
   return router;

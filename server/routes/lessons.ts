@@ -1,14 +1,13 @@
 import { Router } from 'express';
 import { createLessonSchema, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
 import type { AppDeps } from '../deps.js';
-import { forbidden } from '../errors.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { requestDb } from '../middleware/request-db.js';
 import { requireClubRole } from '../services/clubs.js';
-import { LESSON_AUTHOR_ROLES, authorName, canManageLesson, createLesson, listLessons, loadLesson, presentLessonDetail, updateLessonText } from '../services/lessons.js';
-import { Lesson } from '../entities/lesson.js';
-import { idParam } from './club-params.js';
+import { presentLessonDetail, presentLessonSummary } from '../presenters/lesson.js';
+import { LESSON_AUTHOR_ROLES, authorName, createLesson, deleteLesson, listLessons, loadLesson, updateLessonText } from '../services/lessons.js';
+import { idParam } from './params.js';
 
 /** /api/lessons: the lessons of the caller's clubs; read, reword, delete. */
 export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
@@ -16,7 +15,7 @@ export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
   const auth = requireAuth(ds, config);
 
   router.get('/', auth, async (req, res) => {
-    res.json({ lessons: await listLessons(ds, currentUser(req).id) });
+    res.json({ lessons: (await listLessons(ds, currentUser(req).id)).map(presentLessonSummary) });
   });
 
   router.get('/:lessonId', auth, async (req, res) => {
@@ -33,8 +32,7 @@ export function lessonsRouter({ dataSource: ds, config }: AppDeps): Router {
 
   router.delete('/:lessonId', auth, async (req, res) => {
     const { lesson, membership } = await loadLesson(ds, currentUser(req).id, idParam(req, 'lessonId', 'lesson'));
-    if (!canManageLesson(lesson, membership)) throw forbidden('Only the lesson’s author or an organizer can delete it.');
-    await ds.getRepository(Lesson).delete({ id: lesson.id });
+    await deleteLesson(ds, lesson, membership);
     res.status(204).end();
   });
 

@@ -1,5 +1,4 @@
-import { Router, type RequestHandler } from 'express';
-import { z } from 'zod';
+import { Router, type Request, type RequestHandler } from 'express';
 import { livestockCreateSchema, livestockPatchSchema } from '../../shared/schemas/tank.js';
 import type { AppDeps } from '../deps.js';
 import type { Livestock } from '../entities/livestock.js';
@@ -7,27 +6,29 @@ import { notFound } from '../errors.js';
 import { currentUser } from '../middleware/require-auth.js';
 import { validateBody, validBody } from '../middleware/validate.js';
 import { requestDb } from '../middleware/request-db.js';
-import { presentLivestock } from '../presenters/tank.js';
+import { presentLivestock } from '../presenters/livestock.js';
 import { addLivestock, findOwnLivestock, removeLivestock, updateLivestock } from '../services/livestock.js';
+import { idParam, uuidParam } from './params.js';
 
-const uuid = z.string().uuid();
+const NO_SUCH_ITEM = 'No such animals in this tank.';
+/** The tank `ownTank` (server/routes/tanks.ts) already checked. */
+const tankIdOf = (req: Request) => idParam(req, 'tankId', 'tank');
 
-/** /api/tanks/:id/livestock — mounted after auth and the tank-ownership check. */
+/** /api/tanks/:tankId/livestock — mounted after auth and the tank-ownership check. */
 export function livestockRouter({ dataSource: ds }: AppDeps): Router {
   const router = Router({ mergeParams: true });
 
   // The row must sit in this (own) tank; anything else is 404 before the body is read.
   const ownItem: RequestHandler = async (req, res, next) => {
-    const id = uuid.safeParse(req.params.livestockId);
-    const item = id.success ? await findOwnLivestock(ds, currentUser(req).id, String(req.params.id), id.data) : null;
-    if (!item) throw notFound('No such animals in this tank.');
+    const item = await findOwnLivestock(ds, currentUser(req).id, tankIdOf(req), uuidParam(req, 'livestockId', NO_SUCH_ITEM));
+    if (!item) throw notFound(NO_SUCH_ITEM);
     res.locals.livestock = item;
     next();
   };
   const item = (res: { locals: Record<string, unknown> }) => res.locals.livestock as Livestock;
 
   router.post('/', validateBody(livestockCreateSchema), async (req, res) => {
-    const created = await addLivestock(requestDb(req, ds), String(req.params.id), validBody(req, livestockCreateSchema));
+    const created = await addLivestock(requestDb(req, ds), tankIdOf(req), validBody(req, livestockCreateSchema));
     res.status(201).json(presentLivestock(created));
   });
 

@@ -1,27 +1,15 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { createShareLinkSchema, shareableTypeSchema, type ShareLinkItem, type replayedShareLinkSchema } from '../../shared/schemas/share.js';
+import { createShareLinkSchema, shareableTypeSchema } from '../../shared/schemas/share.js';
 import type { AppDeps } from '../deps.js';
-import { notFound } from '../errors.js';
-import type { ShareLink } from '../entities/share-link.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validateBody, validateQuery, validBody, validQuery } from '../middleware/validate.js';
 import { requestDb, storeAnswerAs } from '../middleware/request-db.js';
-import { createShareLink, listShareLinks, revokeShareLink, sharedView } from '../services/share-links.js';
-import { idParam } from './club-params.js';
+import { presentCreatedShareLink, presentReplayedShareLink, presentShareLink, presentSharedView } from '../presenters/share-link.js';
+import { NO_SUCH_LINK, createShareLink, listShareLinks, revokeShareLink, sharedView } from '../services/share-links.js';
+import { idParam, tokenParam } from './params.js';
 
 const listQuery = z.object({ itemType: shareableTypeSchema, itemId: z.string().uuid() });
-const TOKEN = /^[A-Za-z0-9_-]{43}$/;
-
-const present = (l: ShareLink, madeBy: string, userId: string): ShareLinkItem => ({
-  id: l.id,
-  itemType: l.itemType,
-  createdAt: l.createdAt.toISOString(),
-  expiresAt: l.expiresAt.toISOString(),
-  revokedAt: l.revokedAt ? new Date(l.revokedAt).toISOString() : null,
-  madeBy,
-  mine: l.createdBy === userId,
-});
 
 /**
  * /api/share-links — create, list and revoke read-only links (signed in). A lesson's links
@@ -35,15 +23,14 @@ export function shareLinksRouter({ dataSource: ds, config }: AppDeps): Router {
     const user = currentUser(req);
     const { link, token } = await createShareLink(requestDb(req, ds), user.id, validBody(req, createShareLinkSchema));
     // The token goes to this answer only: a replay of the key gets the link without it.
-    const replayed: z.infer<typeof replayedShareLinkSchema> = { ...present(link, user.displayName, user.id), url: null, urlShownOnce: true };
-    storeAnswerAs(req, replayed);
-    res.status(201).json({ ...present(link, user.displayName, user.id), url: `${config.appUrl}/s/${token}` });
+    storeAnswerAs(req, presentReplayedShareLink(link, user));
+    res.status(201).json(presentCreatedShareLink(link, user, `${config.appUrl}/s/${token}`));
   });
 
   router.get('/', auth, validateQuery(listQuery), async (req, res) => {
     const { itemType, itemId } = validQuery(req, listQuery);
     const userId = currentUser(req).id;
-    res.json({ links: (await listShareLinks(ds, userId, itemType, itemId)).map(({ link, madeBy }) => present(link, madeBy, userId)) });
+    res.json({ links: (await listShareLinks(ds, userId, itemType, itemId)).map(({ link, madeBy }) => presentShareLink(link, madeBy, userId)) });
   });
 
   router.delete('/:linkId', auth, async (req, res) => {
@@ -58,9 +45,7 @@ export function shareLinksRouter({ dataSource: ds, config }: AppDeps): Router {
 export function sharedViewRouter({ dataSource: ds }: AppDeps): Router {
   const router = Router();
   router.get('/:token', async (req, res) => {
-    const token = req.params.token;
-    if (typeof token !== 'string' || !TOKEN.test(token)) throw notFound('This link does not work: it was revoked, has expired, or is mistyped.');
-    res.json(await sharedView(ds, token));
+    res.json(presentSharedView(await sharedView(ds, tokenParam(req, 'token', NO_SUCH_LINK))));
   });
   return router;
 }

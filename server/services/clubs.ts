@@ -43,14 +43,21 @@ export async function createClub(ds: Db, userId: string, name: string): Promise<
 }
 
 /** The caller's clubs with member counts, by name. */
-export async function listMyClubs(ds: DataSource, userId: string): Promise<{ id: string; name: string; myRole: ClubRole; memberCount: number }[]> {
-  const rows: { id: string; name: string; role: ClubRole; count: string }[] = await ds.query(
+/** A club of the caller's, with their role and the member count. */
+export interface MyClubRow {
+  id: string;
+  name: string;
+  role: ClubRole;
+  count: string;
+}
+
+export async function listMyClubs(ds: DataSource, userId: string): Promise<MyClubRow[]> {
+  return ds.query(
     `SELECT c.id, c.name, m.role, (SELECT count(*) FROM club_memberships x WHERE x.club_id = c.id) AS count
        FROM club_memberships m JOIN clubs c ON c.id = m.club_id
       WHERE m.user_id = $1 ORDER BY c.name`,
     [userId],
   );
-  return rows.map((r) => ({ id: r.id, name: r.name, myRole: r.role, memberCount: Number(r.count) }));
 }
 
 /** Organizer grants or removes the mentor role. Organizers' own roles are not changed here. */
@@ -60,6 +67,12 @@ export async function setMemberRole(ds: DataSource, clubId: string, targetUserId
   if (!target) throw notFound('No such member.');
   if (target.role === 'organizer') throw conflict('An organizer keeps the organizer role.');
   await repo.update({ id: target.id }, { role });
+}
+
+/** An organizer removes someone else (leaving oneself is `endMembership` through Leave club). */
+export async function removeMember(ds: Db, organizer: ClubMembership, userId: string): Promise<void> {
+  if (userId === organizer.userId) throw conflict('To leave the club yourself, use Leave club.');
+  await endMembership(ds, organizer.clubId, userId);
 }
 
 /**

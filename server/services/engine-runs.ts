@@ -1,4 +1,4 @@
-import { AppError, badRequest, serviceUnavailable, unprocessable, validationFailed } from '../errors.js';
+import { type AppError, badRequest, engineBusy, engineMemoryLimit, engineTimeLimit, serviceUnavailable, unprocessable, validationFailed } from '../errors.js';
 import type { EngineTask } from '../workers/engine-tasks.js';
 import { EngineStopped, runOnEnginePool, type EngineStop } from '../workers/engine-pool.js';
 
@@ -12,15 +12,11 @@ export function stoppedError(stop: EngineStop, limits: { taskMs: number }): AppE
   switch (stop) {
     case 'queue-full':
     case 'queue-wait':
-      return new AppError(503, 'engine_busy', 'The forecast engine is busy. Try again in a few seconds.', undefined, { 'Retry-After': '5' });
+      return engineBusy();
     case 'time-limit':
-      return new AppError(
-        422,
-        'engine_time_limit',
-        `This took longer than the ${Math.round(limits.taskMs / 1000)} s the engine allows one request and was stopped. Ask for fewer members, a shorter horizon or fewer repeated events.`,
-      );
+      return engineTimeLimit(limits.taskMs);
     case 'out-of-memory':
-      return new AppError(422, 'engine_memory_limit', 'This needed more memory than the engine allows one request and was stopped. Ask for fewer members, a shorter horizon or fewer repeated events.');
+      return engineMemoryLimit();
     case 'cancelled':
       // The client went away; nobody reads this answer.
       return serviceUnavailable();

@@ -1,5 +1,4 @@
 import type { DataSource } from 'typeorm';
-import type { InvitePreview, PendingInvite } from '../../shared/schemas/club.js';
 import { conflict, forbidden, notFound, unauthorized, validationFailed } from '../errors.js';
 import { Club } from '../entities/club.js';
 import { ClubInvite } from '../entities/club-invite.js';
@@ -60,21 +59,23 @@ async function liveInvite(ds: Db, token: string): Promise<ClubInvite | null> {
 }
 
 /** A club's invites still waiting for an answer (not accepted, expired or revoked), newest first. */
-export async function listPendingInvites(ds: DataSource, clubId: string): Promise<PendingInvite[]> {
-  const rows: { id: string; email: string; invited_by: string | null; created_at: Date; expires_at: Date }[] = await ds.query(
+export interface PendingInviteRow {
+  id: string;
+  email: string;
+  /** The sender's display name; null once their account is gone. */
+  invited_by: string | null;
+  created_at: Date;
+  expires_at: Date;
+}
+
+export async function listPendingInvites(ds: DataSource, clubId: string): Promise<PendingInviteRow[]> {
+  return ds.query(
     `SELECT i.id, i.email, u.display_name AS invited_by, i.created_at, i.expires_at
        FROM club_invites i LEFT JOIN users u ON u.id = i.invited_by
       WHERE i.club_id = $1 AND ${PENDING_SQL}
       ORDER BY i.created_at DESC, i.id`,
     [clubId],
   );
-  return rows.map((r) => ({
-    id: r.id,
-    email: r.email,
-    invitedBy: r.invited_by ?? 'An organizer',
-    createdAt: new Date(r.created_at).toISOString(),
-    expiresAt: new Date(r.expires_at).toISOString(),
-  }));
 }
 
 /**
@@ -94,18 +95,32 @@ export async function revokeInvite(ds: DataSource, clubId: string, inviteId: str
 }
 
 /** What the link holder sees before accepting; 404 for an unknown, used, expired or revoked token. */
-export async function previewInvite(ds: DataSource, token: string): Promise<InvitePreview> {
+export interface InviteOnShow {
+  invite: ClubInvite;
+  clubName: string;
+  /** null once the sender's account is gone. */
+  inviterName: string | null;
+  accountExists: boolean;
+}
+
+export async function previewInvite(ds: DataSource, token: string): Promise<InviteOnShow> {
   const invite = await liveInvite(ds, token);
   if (!invite) throw notFound(INVALID_INVITE_MESSAGE);
   const club = await ds.getRepository(Club).findOneByOrFail({ id: invite.clubId });
   const inviter = await ds.getRepository(User).findOneBy({ id: invite.invitedBy });
   return {
+    invite,
     clubName: club.name,
-    invitedBy: inviter?.displayName ?? 'An organizer',
-    email: invite.email,
-    expiresAt: invite.expiresAt.toISOString(),
+    inviterName: inviter?.displayName ?? null,
     accountExists: await ds.getRepository(User).existsBy({ email: invite.email }),
   };
+}
+
+export interface AcceptedInvite {
+  userId: string;
+  clubId: string;
+  /** A new account was made for the invited address. */
+  created: boolean;
 }
 
 /**
@@ -119,7 +134,7 @@ export async function acceptInvite(
   token: string,
   signedInUserId: string | null,
   newAccount: { displayName?: string; password?: string },
-): Promise<{ userId: string; clubId: string; created: boolean }> {
+): Promise<AcceptedInvite> {
   const preview = await liveInvite(ds, token);
   if (!preview) throw notFound(INVALID_INVITE_MESSAGE);
   let userId = signedInUserId;

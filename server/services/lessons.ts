@@ -2,7 +2,7 @@ import type { DataSource } from 'typeorm';
 import type { Db } from '../data-source.js';
 import type { ClubRole } from '../../shared/schemas/auth.js';
 import type { z } from 'zod';
-import type { LessonDetail, LessonSummary, updateLessonTextSchema } from '../../shared/schemas/lesson.js';
+import type { updateLessonTextSchema } from '../../shared/schemas/lesson.js';
 import type { Scenario } from '../../simulation/scenario.js';
 import { forbidden, notFound, validationFailed } from '../errors.js';
 import { ClubMembership } from '../entities/club-membership.js';
@@ -56,9 +56,19 @@ export async function createLesson(ds: Db, membership: ClubMembership, input: Le
 }
 
 /** Lessons of every club the user belongs to. */
-export async function listLessons(ds: DataSource, userId: string): Promise<LessonSummary[]> {
-  const rows: { id: string; club_id: string; club_name: string; title: string; summary: string; kind: 'single' | 'compare'; author_name: string | null }[] =
-    await ds.query(
+export interface LessonSummaryRow {
+  id: string;
+  club_id: string;
+  club_name: string;
+  title: string;
+  summary: string;
+  kind: 'single' | 'compare';
+  /** null once the author's account is gone. */
+  author_name: string | null;
+}
+
+export async function listLessons(ds: DataSource, userId: string): Promise<LessonSummaryRow[]> {
+  return ds.query(
       `SELECT l.id, l.club_id, c.name AS club_name, l.title, l.summary, l.kind, u.display_name AS author_name
          FROM lessons l JOIN clubs c ON c.id = l.club_id
          JOIN club_memberships m ON m.club_id = l.club_id AND m.user_id = $1
@@ -66,7 +76,6 @@ export async function listLessons(ds: DataSource, userId: string): Promise<Lesso
         ORDER BY c.name, l.created_at, l.id`,
       [userId],
     );
-  return rows.map((r) => ({ id: r.id, clubId: r.club_id, clubName: r.club_name, title: r.title, summary: r.summary, kind: r.kind, authorName: r.author_name ?? 'A former mentor' }));
 }
 
 /** A lesson and the caller's membership of its club; 404 outside the club. */
@@ -96,24 +105,15 @@ export async function updateLessonText(ds: DataSource, lesson: Lesson, membershi
   return updated;
 }
 
-export async function authorName(ds: DataSource, lesson: Lesson): Promise<string> {
-  if (!lesson.authorId) return 'A former mentor';
+/** The author's display name; null once their account is gone. */
+export async function authorName(ds: DataSource, lesson: Lesson): Promise<string | null> {
+  if (!lesson.authorId) return null;
   const rows: { display_name: string }[] = await ds.query(`SELECT display_name FROM users WHERE id = $1`, [lesson.authorId]);
-  return rows[0]?.display_name ?? 'A former mentor';
+  return rows[0]?.display_name ?? null;
 }
 
-export function presentLessonDetail(lesson: Lesson, membership: ClubMembership, author: string): LessonDetail {
-  return {
-    id: lesson.id,
-    clubId: lesson.clubId,
-    clubName: membership.club?.name ?? '',
-    title: lesson.title,
-    summary: lesson.summary,
-    kind: lesson.kind,
-    authorName: author,
-    steps: lesson.steps,
-    scenario: lesson.scenario,
-    stagedScenario: lesson.stagedScenario,
-    canManage: canManageLesson(lesson, membership),
-  };
+/** The author or an organizer deletes a lesson; others in the club get 403. */
+export async function deleteLesson(ds: DataSource, lesson: Lesson, membership: ClubMembership): Promise<void> {
+  if (!canManageLesson(lesson, membership)) throw forbidden('Only the lesson’s author or an organizer can delete it.');
+  await ds.getRepository(Lesson).delete({ id: lesson.id });
 }

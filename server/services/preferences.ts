@@ -1,16 +1,14 @@
 import type { DataSource } from 'typeorm';
-import { DEFAULT_PREFERENCES, type Preferences } from '../../shared/schemas/preferences.js';
+import type { Preferences } from '../../shared/schemas/preferences.js';
 import { UserPreferences } from '../entities/user-preferences.js';
 
-/** The person's preferences, or the defaults when they never chose. */
-export async function getPreferences(ds: DataSource, userId: string): Promise<Preferences> {
-  const row = await ds.getRepository(UserPreferences).findOneBy({ userId });
-  if (!row) return { ...DEFAULT_PREFERENCES };
-  return { volumeUnit: row.volumeUnit, temperatureUnit: row.temperatureUnit, nitrogenBasis: row.nitrogenBasis, reminders: row.reminders };
+/** The person's stored preferences; null when they never chose (the defaults apply). */
+export async function findPreferences(ds: DataSource, userId: string): Promise<UserPreferences | null> {
+  return ds.getRepository(UserPreferences).findOneBy({ userId });
 }
 
-/** Replaces the person's preferences (one upsert). */
-export async function putPreferences(ds: DataSource, userId: string, prefs: Preferences): Promise<Preferences> {
+/** Replaces the person's preferences (one upsert) and reads them back. */
+export async function putPreferences(ds: DataSource, userId: string, prefs: Preferences): Promise<UserPreferences | null> {
   await ds.getRepository(UserPreferences).upsert({ userId, ...prefs }, ['userId']);
-  return getPreferences(ds, userId);
+  return findPreferences(ds, userId);
 }

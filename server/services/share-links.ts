@@ -1,6 +1,7 @@
 import { In, type DataSource } from 'typeorm';
 import type { Db } from '../data-source.js';
-import type { ShareableType, SharedView } from '../../shared/schemas/share.js';
+import type { ShareableType } from '../../shared/schemas/share.js';
+import type { Scenario } from '../../simulation/scenario.js';
 import { notFound } from '../errors.js';
 import { Lesson } from '../entities/lesson.js';
 import { Livestock } from '../entities/livestock.js';
@@ -13,7 +14,7 @@ import { authorName, canManageLesson } from './lessons.js';
 import { scenarioFromPlanOrNull } from './scenario-from-plan.js';
 import { newLinkToken, sha256Hex } from './secret-tokens.js';
 
-const NO_SUCH_LINK = 'This link does not work: it was revoked, has expired, or is mistyped.';
+export const NO_SUCH_LINK = 'This link does not work: it was revoked, has expired, or is mistyped.';
 
 /**
  * Whether the user may share the item now: the plan's tank owner, or a lesson's manager (its
@@ -102,8 +103,13 @@ export async function revokeShareLink(ds: DataSource, userId: string, linkId: st
   if (returnedRows(result).length === 0) throw notFound('No such link.');
 }
 
-/** The read-only content behind a live token: the item only, no ids, no e-mail. */
-export async function sharedView(ds: DataSource, token: string): Promise<SharedView> {
+/** What a live link shows: a plan (with its scenario, null when it cannot be forecast) or a lesson. */
+export type SharedItem =
+  | { itemType: 'plan'; plan: Plan; scenario: Scenario | null }
+  | { itemType: 'lesson'; lesson: Lesson; authorName: string | null };
+
+/** The item behind a live token, when its maker may still share it; 404 otherwise. */
+export async function sharedView(ds: DataSource, token: string): Promise<SharedItem> {
   const link = await ds.getRepository(ShareLink).findOneBy({ tokenHash: sha256Hex(token) });
   if (!link || link.revokedAt || link.expiresAt.getTime() <= Date.now()) throw notFound(NO_SUCH_LINK);
   // The maker must still be allowed to share it: a link is their act, not a standing grant.
@@ -113,24 +119,9 @@ export async function sharedView(ds: DataSource, token: string): Promise<SharedV
     if (!plan) throw notFound(NO_SUCH_LINK);
     const tank = await ds.getRepository(Tank).findOneByOrFail({ id: plan.tankId });
     const livestock = await ds.getRepository(Livestock).findBy({ tankId: tank.id });
-    return {
-      itemType: 'plan',
-      plan: { name: plan.name, startDate: plan.startDate, events: plan.events },
-      scenario: scenarioFromPlanOrNull(tank, livestock, plan),
-    };
+    return { itemType: 'plan', plan, scenario: scenarioFromPlanOrNull(tank, livestock, plan) };
   }
   const lesson = await ds.getRepository(Lesson).findOneBy({ id: link.itemId });
   if (!lesson) throw notFound(NO_SUCH_LINK);
-  return {
-    itemType: 'lesson',
-    lesson: {
-      title: lesson.title,
-      summary: lesson.summary,
-      kind: lesson.kind,
-      authorName: await authorName(ds, lesson),
-      steps: lesson.steps,
-      scenario: lesson.scenario,
-      stagedScenario: lesson.stagedScenario,
-    },
-  };
+  return { itemType: 'lesson', lesson, authorName: await authorName(ds, lesson) };
 }

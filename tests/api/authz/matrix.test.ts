@@ -106,7 +106,7 @@ function expectHeaders(res: request.Response, pattern: string) {
 
 const DENIED = new Set<unknown>([401, 403, 404]);
 
-/** `GET /api/tanks/:id` and `GET /api/tanks/:value` alike: parameter names do not matter. */
+/** `GET /api/tanks/:tankId` and `GET /api/tanks/:value` alike: parameter names do not matter. */
 const shape = (route: string) => route.replace(/:[A-Za-z_]\w*/g, ':');
 
 /**
@@ -184,20 +184,20 @@ describe('the matrix tells a route’s own denial from another layer’s', () =>
     logs.entries.length = 0;
     // No CSRF header: the global request guards answer 403 before any route runs.
     await request(app).delete(`/api/tanks/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(403);
-    expect(notTheRoutesDenial(logs.entries, 'DELETE', '/api/tanks/:id')).toMatch(/not a route/);
+    expect(notTheRoutesDenial(logs.entries, 'DELETE', '/api/tanks/:tankId')).toMatch(/not a route/);
 
     logs.entries.length = 0;
     // A path no route answers (a typo in a row): the catch-all's 404 is no ownership refusal.
     await request(app).get(`/api/tank/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(404);
-    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toMatch(/expected one access.denied/);
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:tankId')).toMatch(/expected one access.denied/);
 
     logs.entries.length = 0;
     // Another route's refusal is not this one's.
     await request(app).get(`/api/plans/${fx.plans.member}`).set('Cookie', fx.cookies.keeper).expect(404);
-    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toMatch(/answered by GET \/api\/plans\/:id/);
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:tankId')).toMatch(/answered by GET \/api\/plans\/:planId/);
 
     logs.entries.length = 0;
     await request(app).get(`/api/tanks/${fx.tanks.member}`).set('Cookie', fx.cookies.keeper).expect(404);
-    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:id')).toBeNull();
+    expect(notTheRoutesDenial(logs.entries, 'GET', '/api/tanks/:tankId')).toBeNull();
   });
 });

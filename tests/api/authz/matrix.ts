@@ -75,7 +75,7 @@ export const MATRIX: Record<string, MatrixRow> = {
 
   // ── tanks: the owner only ────────────────────────────────────────────────────────────
   'GET /api/tanks': { request: () => ({ path: '/api/tanks' }), expect: signedIn() },
-  'GET /api/tanks/:id': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}` }), expect: ownerOnly() },
+  'GET /api/tanks/:tankId': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}` }), expect: ownerOnly() },
 
   'GET /api/me/preferences': { request: () => ({ path: '/api/me/preferences' }), expect: signedIn() },
   'PUT /api/me/preferences': {
@@ -96,35 +96,35 @@ export const MATRIX: Record<string, MatrixRow> = {
 
   // ── tanks, livestock, readings: the owner only ──────────────────────────────────────
   'POST /api/tanks': { request: () => ({ path: '/api/tanks', body: { name: 'Matrix tank', volumeL: 54 } }), expect: signedIn() },
-  'PATCH /api/tanks/:id': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}`, body: { name: 'Renamed' } }), expect: ownerOnly() },
-  'DELETE /api/tanks/:id': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}` }), expect: ownerOnly() },
-  'POST /api/tanks/:id/livestock': {
+  'PATCH /api/tanks/:tankId': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}`, body: { name: 'Renamed' } }), expect: ownerOnly() },
+  'DELETE /api/tanks/:tankId': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}` }), expect: ownerOnly() },
+  'POST /api/tanks/:tankId/livestock': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/livestock`, body: { speciesId: 'neon-tetra', count: 2 } }),
     expect: ownerOnly(),
   },
-  'PATCH /api/tanks/:id/livestock/:livestockId': {
+  'PATCH /api/tanks/:tankId/livestock/:livestockId': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/livestock/${fx.livestock.member}`, body: { count: 3 } }),
     expect: ownerOnly(),
   },
-  'DELETE /api/tanks/:id/livestock/:livestockId': {
+  'DELETE /api/tanks/:tankId/livestock/:livestockId': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/livestock/${fx.livestock.member}` }),
     expect: ownerOnly(),
   },
-  'GET /api/tanks/:id/readings': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings` }), expect: ownerOnly() },
-  'POST /api/tanks/:id/readings': {
+  'GET /api/tanks/:tankId/readings': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings` }), expect: ownerOnly() },
+  'POST /api/tanks/:tankId/readings': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings`, body: { takenAt: '2026-01-05T10:00:00Z', tan: 0.2 } }),
     expect: ownerOnly(),
   },
-  'GET /api/tanks/:id/readings/export.csv': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings/export.csv` }), expect: ownerOnly() },
-  'POST /api/tanks/:id/readings/import/preview': {
+  'GET /api/tanks/:tankId/readings/export.csv': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings/export.csv` }), expect: ownerOnly() },
+  'POST /api/tanks/:tankId/readings/import/preview': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings/import/preview`, csv: CSV_ONE_TEST }),
     expect: ownerOnly(),
   },
-  'POST /api/tanks/:id/readings/import/commit': {
+  'POST /api/tanks/:tankId/readings/import/commit': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings/import/commit`, csv: CSV_ONE_TEST }),
     expect: ownerOnly(),
   },
-  'DELETE /api/tanks/:id/readings/:readingId': {
+  'DELETE /api/tanks/:tankId/readings/:readingId': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/readings/${fx.readings.member}` }),
     expect: ownerOnly(),
   },
@@ -136,10 +136,10 @@ export const MATRIX: Record<string, MatrixRow> = {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/plans`, body: { name: 'Matrix plan', startDate: '2026-02-01' } }),
     expect: ownerOnly(),
   },
-  'GET /api/plans/:id': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
-  'PATCH /api/plans/:id': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}`, body: { name: 'Renamed plan' } }), expect: ownerOnly() },
-  'DELETE /api/plans/:id': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
-  'POST /api/plans/:id/forecast': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/forecast` }), expect: ownerOnly() },
+  'GET /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
+  'PATCH /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}`, body: { name: 'Renamed plan' } }), expect: ownerOnly() },
+  'DELETE /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
+  'POST /api/plans/:planId/forecast': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/forecast` }), expect: ownerOnly() },
   'POST /api/tanks/:tankId/advice/addition': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/advice/addition`, body: { fish: { species: 'neon-tetra', count: 4 }, searchDays: 30 } }),
     expect: ownerOnly(),
@@ -269,15 +269,15 @@ const nobody = () => ({ ...all(404), anonymous: 401 as Outcome });
  * MATRIX key. The actor named in the situation owns the parent, and still gets 404.
  */
 export const CROSS_TENANT: Record<string, MatrixRow> = {
-  'DELETE /api/tanks/:id/readings/:readingId — the keeper’s tank, the member’s reading': {
+  'DELETE /api/tanks/:tankId/readings/:readingId — the keeper’s tank, the member’s reading': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/readings/${fx.readings.member}` }),
     expect: nobody(),
   },
-  'PATCH /api/tanks/:id/livestock/:livestockId — the keeper’s tank, the member’s fish': {
+  'PATCH /api/tanks/:tankId/livestock/:livestockId — the keeper’s tank, the member’s fish': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/livestock/${fx.livestock.member}`, body: { count: 3 } }),
     expect: nobody(),
   },
-  'DELETE /api/tanks/:id/livestock/:livestockId — the keeper’s tank, the member’s fish': {
+  'DELETE /api/tanks/:tankId/livestock/:livestockId — the keeper’s tank, the member’s fish': {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.keeper}/livestock/${fx.livestock.member}` }),
     expect: nobody(),
   },

@@ -2,7 +2,7 @@ import type { Express } from 'express';
 
 export interface RouteEntry {
   method: string;
-  /** Full pattern as Express matches it, e.g. `/api/tanks/:id`. */
+  /** Full pattern as Express matches it, e.g. `/api/tanks/:tankId`. */
   path: string;
 }
 

@@ -29,8 +29,8 @@ describe('denied access and failures in the logs (hardening S15)', () => {
 
     const denied = ctx.logs.entries.filter((e) => e.event === 'access.denied');
     expect(denied.map((e) => [e.fields.status, e.fields.matched])).toEqual([
-      [404, 'GET /api/tanks/:id'],
-      [404, 'GET /api/plans/:id'],
+      [404, 'GET /api/tanks/:tankId'],
+      [404, 'GET /api/plans/:planId'],
       [404, 'DELETE /api/tanks/:value/readings/:readingId'],
     ]);
     for (const e of denied) expect(e.fields.userId).toBe(me.user.id);
