@@ -21,7 +21,7 @@ import { parseScenario } from '../simulation/scenario.js';
 import type { EntityManager } from 'typeorm';
 
 /**
- * Invented demo data: the "Willow Creek Fishkeepers" club with an organizer, a mentor and a
+ * Invented demo data: the "Quillwater Fishkeepers" club with an organizer, a mentor and a
  * member, a site admin and a keeper outside the club. The member keeps three tanks with a
  * month of water tests and one active plan (a purchase added in stages).
  */
@@ -55,7 +55,7 @@ function isoDate(now: Date, daysFromToday: number): string {
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 
 function describeRole(p: (typeof DEMO_PEOPLE)[number]): string {
-  if (p.club) return `${p.club}, Willow Creek Fishkeepers`;
+  if (p.club) return `${p.club}, Quillwater Fishkeepers`;
   return p.site === 'admin' ? 'site admin' : 'keeper';
 }
 
@@ -95,7 +95,7 @@ export async function seedDemo(ds: DataSource, now = new Date()): Promise<DemoSi
       users.set(p.key, user);
     }
 
-    const club = await tx.getRepository(Club).save(tx.getRepository(Club).create({ name: 'Willow Creek Fishkeepers' }));
+    const club = await tx.getRepository(Club).save(tx.getRepository(Club).create({ name: 'Quillwater Fishkeepers' }));
     for (const p of DEMO_PEOPLE) {
       if (!p.club) continue;
       await tx.getRepository(ClubMembership).insert({ clubId: club.id, userId: users.get(p.key)!.id, role: p.club });
