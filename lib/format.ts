@@ -44,11 +44,17 @@ export function formatWait(seconds: number): string {
   return `${h} hour${h === 1 ? '' : 's'}`;
 }
 
-/** "1 fish", "14 fish · 3 species". */
-export function stockingLabel(fishCount: number, speciesCount: number): string {
-  if (fishCount === 0) return 'No fish';
+/**
+ * "1 fish · 1 species", "14 fish and 10 shrimp or snails · 4 species", "No animals": shrimp and
+ * snails are not counted as fish.
+ */
+export function stockingLabel(fishCount: number, speciesCount: number, invertebrateCount = 0): string {
+  if (fishCount === 0 && invertebrateCount === 0) return 'No animals';
+  const inverts = invertebrateCount > 0 ? `${invertebrateCount} shrimp or snail${invertebrateCount === 1 ? '' : 's'}` : '';
+  const fish = fishCount > 0 ? `${fishCount} fish` : '';
+  const animals = fish && inverts ? `${fish} and ${inverts}` : fish || inverts;
   const species = speciesCount > 0 ? ` · ${speciesCount} species` : '';
-  return `${fishCount} fish${species}`;
+  return `${animals}${species}`;
 }
 
 /** A compact date for tables: "12 Mar" within the current year, "12 Mar 2024" otherwise. */

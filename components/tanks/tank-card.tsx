@@ -36,7 +36,7 @@ export function TankCard({ tank, now, units }: { tank: TankSummaryWithStatus; no
     `${status.label}.`,
     ...judgedLines.map((l) => `${l.text}.`),
     `${facts}.`,
-    `${stockingLabel(tank.fishCount, tank.speciesCount)}.`,
+    `${stockingLabel(tank.fishCount, tank.speciesCount, tank.invertebrateCount)}.`,
     reading ? `Last water test ${testedWhen}.` : '',
     `${next.text}.`,
     tank.activePlan ? `Plan in progress: ${tank.activePlan.name}.` : '',
@@ -73,7 +73,7 @@ export function TankCard({ tank, now, units }: { tank: TankSummaryWithStatus; no
         <AppText tone="textMuted" testID={`tank-card-${tank.id}-facts`}>
           {facts}
         </AppText>
-        <AppText>{stockingLabel(tank.fishCount, tank.speciesCount)}</AppText>
+        <AppText>{stockingLabel(tank.fishCount, tank.speciesCount, tank.invertebrateCount)}</AppText>
       </View>
 
       {reading ? (

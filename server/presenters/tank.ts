@@ -14,6 +14,7 @@ export function presentTankSummary(row: TankSummaryRow): TankSummary {
     temperatureC: tank.temperatureC,
     ph: tank.ph,
     fishCount: row.fishCount,
+    invertebrateCount: row.invertebrateCount,
     speciesCount: row.speciesCount,
     latestReading: r ? { takenAt: r.takenAt.toISOString(), tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN } : null,
     activePlan: p ? { id: p.id, name: p.name } : null,

@@ -5,10 +5,12 @@ import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import { Tank } from '../entities/tank.js';
+import { findSpecies } from '../../simulation/catalogue.js';
 
 export interface TankSummaryRow {
   tank: Tank;
   fishCount: number;
+  invertebrateCount: number;
   speciesCount: number;
   latestReading: Reading | null;
   activePlan: Plan | null;
@@ -27,12 +29,22 @@ export async function listOwnTanks(ds: DataSource, ownerId: string): Promise<Tan
   if (tanks.length === 0) return [];
   const ids = tanks.map((t) => t.id);
 
-  const counts: { tank_id: string; fish: string; species: string }[] = await ds.query(
-    `SELECT tank_id, coalesce(sum(count), 0) AS fish,
-            count(DISTINCT coalesce(species_id, 'custom:' || lower(custom_name))) AS species
-       FROM livestock WHERE tank_id = ANY($1::uuid[]) GROUP BY tank_id`,
+  // Per kind of animal, so catalogue shrimp and snails are told apart from fish (the catalogue
+  // lives in the engine, not the database).
+  const groups: { tank_id: string; kind: string; animals: string }[] = await ds.query(
+    `SELECT tank_id, coalesce(species_id, 'custom:' || lower(custom_name)) AS kind, sum(count) AS animals
+       FROM livestock WHERE tank_id = ANY($1::uuid[]) GROUP BY tank_id, kind`,
     [ids],
   );
+  const counts = new Map<string, { fish: number; invertebrates: number; species: number }>();
+  for (const g of groups) {
+    const c = counts.get(g.tank_id) ?? { fish: 0, invertebrates: 0, species: 0 };
+    const animals = Number(g.animals);
+    if (findSpecies(g.kind)?.invertebrate) c.invertebrates += animals;
+    else c.fish += animals;
+    c.species += 1;
+    counts.set(g.tank_id, c);
+  }
   const latest = await ds
     .getRepository(Reading)
     .createQueryBuilder('r')
@@ -51,13 +63,13 @@ export async function listOwnTanks(ds: DataSource, ownerId: string): Promise<Tan
     .addOrderBy('p.start_date', 'DESC')
     .getMany();
 
-  const countBy = new Map(counts.map((c) => [c.tank_id, c]));
   const latestBy = new Map(latest.map((r) => [r.tankId, r]));
   const activeBy = new Map(active.map((p) => [p.tankId, p]));
   return tanks.map((tank) => ({
     tank,
-    fishCount: Number(countBy.get(tank.id)?.fish ?? 0),
-    speciesCount: Number(countBy.get(tank.id)?.species ?? 0),
+    fishCount: counts.get(tank.id)?.fish ?? 0,
+    invertebrateCount: counts.get(tank.id)?.invertebrates ?? 0,
+    speciesCount: counts.get(tank.id)?.species ?? 0,
     latestReading: latestBy.get(tank.id) ?? null,
     activePlan: activeBy.get(tank.id) ?? null,
   }));

@@ -13,7 +13,9 @@ export const tankSummarySchema = z.object({
   volumeL: z.number(),
   temperatureC: z.number(),
   ph: z.number(),
+  /** Fish only: shrimp and snails are counted apart (`invertebrateCount`). */
   fishCount: z.number().int(),
+  invertebrateCount: z.number().int(),
   speciesCount: z.number().int(),
   latestReading: z
     .object({

@@ -16,9 +16,9 @@ describe('demo seed', () => {
     const signIns = await seedDemo(ctx.deps.dataSource, new Date('2026-05-20T12:00:00Z'));
     expect(signIns).not.toBeNull();
     expect(signIns!.map((s) => s.role)).toEqual([
-      'organizer, Willow Creek Fishkeepers',
-      'mentor, Willow Creek Fishkeepers',
-      'member, Willow Creek Fishkeepers',
+      'organizer, Quillwater Fishkeepers',
+      'mentor, Quillwater Fishkeepers',
+      'member, Quillwater Fishkeepers',
       'site admin',
       'keeper',
     ]);
@@ -32,12 +32,14 @@ describe('demo seed', () => {
       sessions.set(s.role, c);
     }
 
-    const member = sessions.get('member, Willow Creek Fishkeepers')!;
+    const member = sessions.get('member, Quillwater Fishkeepers')!;
     const { tanks } = tankListSchema.parse((await member.get('/api/tanks').expect(200)).body);
     expect(tanks.map((t) => t.name)).toEqual(['Living-room community', 'Quarantine', 'Shrimp cube']);
     const community = tanks[0];
     expect(community).toMatchObject({ fishCount: 19, speciesCount: 3, activePlan: { name: 'Harlequin rasboras in three batches' } });
     expect(community.latestReading).not.toBeNull();
+    // Shrimp and snails are not fish (the home card once said "27 fish" for this tank).
+    expect(tanks[2]).toMatchObject({ name: 'Shrimp cube', fishCount: 0, invertebrateCount: 27, speciesCount: 2 });
 
     const detail = tankDetailSchema.parse((await member.get(`/api/tanks/${community.id}`).expect(200)).body);
     expect(detail.readings.length).toBeGreaterThanOrEqual(7); // two a week for four weeks

@@ -100,7 +100,12 @@ describe('stockingLabel', () => {
   it('names fish and species, or says the tank is empty', () => {
     expect(stockingLabel(14, 3)).toBe('14 fish · 3 species');
     expect(stockingLabel(1, 1)).toBe('1 fish · 1 species');
-    expect(stockingLabel(0, 0)).toBe('No fish');
+    expect(stockingLabel(0, 0)).toBe('No animals');
+  });
+
+  it('does not count shrimp and snails as fish', () => {
+    expect(stockingLabel(0, 2, 27)).toBe('27 shrimp or snails · 2 species');
+    expect(stockingLabel(6, 3, 1)).toBe('6 fish and 1 shrimp or snail · 3 species');
   });
 });
 
