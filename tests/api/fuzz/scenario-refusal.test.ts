@@ -5,6 +5,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { ScenarioError, parseScenario } from '../../../simulation/scenario.js';
 import { forecast } from '../../../simulation/forecast/index.js';
 import { FUZZ_SEED, caseCounter } from './seed.js';
+import { setAt } from '../helpers/schema-edges.js';
 
 // Tests run from the repository root (vitest's root).
 const examplesDir = path.resolve(process.cwd(), 'simulation/examples');
@@ -19,14 +20,6 @@ function numericPaths(value: unknown, at: (string | number)[] = []): (string | n
   if (Array.isArray(value)) return value.flatMap((v, i) => numericPaths(v, [...at, i]));
   if (value && typeof value === 'object') return Object.entries(value).flatMap(([k, v]) => numericPaths(v, [...at, k]));
   return [];
-}
-
-function setAt(root: unknown, at: (string | number)[], v: unknown): unknown {
-  const copy = structuredClone(root) as Record<string | number, unknown>;
-  let node = copy;
-  for (const key of at.slice(0, -1)) node = node[key] as Record<string | number, unknown>;
-  node[at[at.length - 1]!] = v;
-  return copy;
 }
 
 /**

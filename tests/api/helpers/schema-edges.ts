@@ -25,7 +25,8 @@ function pick(node: Json, value: unknown): Json {
   return pick(match ?? options[0]!, value);
 }
 
-function setAt(root: unknown, at: (string | number)[], v: unknown): unknown {
+/** A deep copy of `root` with the value at `at` replaced (the fuzz tests use it too). */
+export function setAt(root: unknown, at: (string | number)[], v: unknown): unknown {
   const copy = structuredClone(root) as Record<string | number, unknown>;
   let node = copy;
   for (const key of at.slice(0, -1)) node = node[key] as Record<string | number, unknown>;
