@@ -1,10 +1,16 @@
 /**
- * Steady state of a mature tank at a constant load: every zone's population has grown until
- * growth equals decay, and oxidation matches the supply. Solved by bisection (the oxidation
- * each TAN level sustains rises monotonically with TAN), per population in turn.
+ * Steady state of a settled tank at a constant load (MODEL.md §3.8): every zone's populations
+ * have grown or shrunk until growth, loss, exchange with the other zones and arrival from
+ * outside balance, and oxidation matches the supply. Solved per population in turn, each by
+ * bisection on the bulk concentration (the oxidation each level sustains rises with it).
  *
- * Per zone, growth = decay gives μ·s(S)·(1 − C/Cmax) = b, so C(S) = Cmax·(1 − b/(μ·s(S)))
- * where that is positive, else 0 (the zone cannot hold a population at that S).
+ * At a given bulk concentration each zone z has an achievable growth g_z = μ·s_z, a loss b_z
+ * (its starvation clock at equilibrium) and a ceiling Cmax_z, and receives
+ * w_z·(k_ex·T + I) from the shed cells of all zones (T = Σ C) and from outside:
+ *   0 = g_z·C·(1 − C/Cmax) − (b_z + k_ex)·C + w_z·(k_ex·T + I),
+ * whose positive root gives C_z(T); T is then the fixed point T = Σ C_z(T), unique because
+ * each C_z is concave in T. So every zone with area holds some of each population — the
+ * best-placed zone most — instead of one zone holding all.
  */
 import { zeros } from './arrays';
 import type { Model } from './model';
@@ -16,6 +22,11 @@ export interface SteadyState {
   /** reference capacities, mg N/d at 20 °C */
   capAo: number[];
   capNo: number[];
+  /** starvation clocks at equilibrium, days */
+  clockAo: number[];
+  clockNo: number[];
+  /** acid adaptation the community has reached (0–1) */
+  acid: number;
   /** TAN oxidised per day, mg N/d */
   oxidation: number;
 }
@@ -28,14 +39,51 @@ export class LoadTooHighError extends Error {
   }
 }
 
-function bisect(fn: (x: number) => number, hi: number): number {
-  let lo = 0;
-  for (let i = 0; i < 200 && hi - lo > 1e-13 * hi; i++) {
+function bisect(fn: (x: number) => number, lo: number, hi: number, relTol: number): number {
+  for (let i = 0; i < 200 && hi - lo > relTol * hi; i++) {
     const mid = 0.5 * (lo + hi);
     if (fn(mid) > 0) hi = mid;
     else lo = mid;
   }
   return 0.5 * (lo + hi);
+}
+
+/** Capacity of one zone receiving `arriving` mg N/d per day, at growth g, loss b (MODEL.md §3.8). */
+function zoneCapacity(g: number, b: number, kEx: number, ceiling: number, arriving: number): number {
+  if (!(ceiling > 0)) return 0;
+  const net = g - b - kEx;
+  const a = g / ceiling;
+  if (a > 0) {
+    const c = (net + Math.sqrt(net * net + 4 * a * arriving)) / (2 * a);
+    // Above its ceiling a zone does not grow (crowding floored at 0): only arrivals balance loss.
+    return c <= ceiling ? c : arriving / (b + kEx);
+  }
+  return net < 0 ? arriving / -net : 0;
+}
+
+/**
+ * Capacities of one population over all zones at the given growth rates g[z] and losses b[z],
+ * written into out; returns the total.
+ */
+function populationCapacities(g: number[], b: number[], ceiling: number[], share: number[], kEx: number, immigration: number, out: number[]): number {
+  const nz = g.length;
+  const sumAt = (total: number, store: boolean) => {
+    let sum = 0;
+    for (let z = 0; z < nz; z++) {
+      const c = zoneCapacity(g[z], b[z], kEx, ceiling[z], share[z] * (kEx * total + immigration));
+      if (store) out[z] = c;
+      sum += c;
+    }
+    return sum;
+  };
+  // F(T) = Σ C_z(T) − T is concave with F(0) ≥ 0: one crossing. Bracket it, then bisect.
+  let hi = 0;
+  for (let z = 0; z < nz; z++) hi += ceiling[z];
+  hi = Math.max(hi, 1e-12);
+  while (sumAt(hi, false) > hi && hi < 1e15) hi *= 4;
+  const total = sumAt(0, false) <= 0 ? 0 : bisect((t) => t - sumAt(t, false), 0, hi, 1e-13);
+  sumAt(total, true);
+  return total;
 }
 
 /**
@@ -47,20 +95,27 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
   const c = model.current;
   const sA = zeros(nz);
   const sN = zeros(nz);
+  const gA = zeros(nz);
+  const gN = zeros(nz);
+  const bA = zeros(nz);
+  const bN = zeros(nz);
   const capAo = zeros(nz);
   const capNo = zeros(nz);
   const V = model.volumeL;
+  const acid = model.acidTarget(kh);
+  const share = model.settleShare;
   const plantTan = (tan: number) => (c.plantUptake > 0 ? (c.plantUptake * tan) / (model.params.kTanPlants + tan) : 0) * V;
 
   const aoOxidation = (tan: number, store: boolean) => {
-    model.saturations(tan, 0, kh, sA, sN);
-    let sum = 0;
+    model.saturations(tan, 0, kh, acid, sA, sN);
     for (let z = 0; z < nz; z++) {
-      const s = sA[z];
-      const cap = s > 0 && c.growthAo * s > c.decayAo ? model.ceilingAo[z] * (1 - c.decayAo / (c.growthAo * s)) : 0;
-      if (store) capAo[z] = cap;
-      sum += cap * c.activityAo * s;
+      gA[z] = c.growthAo * sA[z];
+      bA[z] = model.settledLoss(gA[z], c.decayAo);
     }
+    const out = store ? capAo : zeros(nz);
+    populationCapacities(gA, bA, model.ceilingAo, share, c.exchange, c.immigration, out);
+    let sum = 0;
+    for (let z = 0; z < nz; z++) sum += out[z] * c.activityAo * sA[z];
     return sum;
   };
   const load = Math.max(0, loadMgNPerDay);
@@ -70,34 +125,46 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
     let hi = 1;
     while (total(hi) <= 0 && hi < 1e4) hi *= 4;
     if (total(hi) <= 0) throw new LoadTooHighError(load, aoOxidation(1e6, false));
-    tan = bisect(total, hi);
+    tan = bisect(total, 0, hi, 1e-13);
   }
   const oxidation = aoOxidation(tan, true);
 
-  let no2 = 0;
   const noOxidation = (x: number, store: boolean) => {
-    model.saturations(tan, x, kh, sA, sN);
-    let sum = 0;
+    model.saturations(tan, x, kh, acid, sA, sN);
     for (let z = 0; z < nz; z++) {
-      const s = sN[z];
-      const cap = s > 0 && c.growthNo * s > c.decayNo ? model.ceilingNo[z] * (1 - c.decayNo / (c.growthNo * s)) : 0;
-      if (store) capNo[z] = cap;
-      sum += cap * c.activityNo * s;
+      gN[z] = c.growthNo * sN[z];
+      bN[z] = model.settledLoss(gN[z], c.decayNo);
     }
+    const out = store ? capNo : zeros(nz);
+    populationCapacities(gN, bN, model.ceilingNo, share, c.exchange, c.immigration, out);
+    let sum = 0;
+    for (let z = 0; z < nz; z++) sum += out[z] * c.activityNo * sN[z];
     return sum;
   };
+  let no2 = 0;
   if (oxidation > 0) {
     const gap = (x: number) => noOxidation(x, false) - oxidation;
     let hi = 1;
     while (gap(hi) <= 0 && hi < 1e4) hi *= 4;
     if (gap(hi) <= 0) throw new LoadTooHighError(oxidation, noOxidation(1e6, false));
-    no2 = bisect(gap, hi);
+    no2 = bisect(gap, 0, hi, 1e-13);
   }
   noOxidation(no2, true);
 
+  // Clocks and the loss nitrogen at the settled water.
+  model.saturations(tan, no2, kh, acid, sA, sN);
+  const clockAo = zeros(nz);
+  const clockNo = zeros(nz);
   const bn = model.biomassNPerCapacity;
   let decayN = 0;
-  for (let z = 0; z < nz; z++) decayN += bn.ao * c.decayAo * capAo[z] + bn.no * c.decayNo * capNo[z];
+  for (let z = 0; z < nz; z++) {
+    const ga = c.growthAo * sA[z];
+    const gn = c.growthNo * sN[z];
+    clockAo[z] = model.settledClock(ga, c.decayAo);
+    clockNo[z] = model.settledClock(gn, c.decayNo);
+    decayN += bn.ao * model.settledLoss(ga, c.decayAo) * capAo[z] + bn.no * model.settledLoss(gn, c.decayNo) * capNo[z];
+  }
+  // Arrivals from outside are built from TAN, so ORG gets the losses minus nothing extra.
   const org = c.ammonification > 0 ? (c.orgInput + decayN / V) / c.ammonification : 0;
-  return { tan, no2, org, capAo, capNo, oxidation };
+  return { tan, no2, org, capAo, capNo, clockAo, clockNo, acid, oxidation };
 }

@@ -1,11 +1,14 @@
 /** Day-0 water and populations of a scenario: a new tank's inoculum, given capacities, or a mature tank's steady state. */
 import type { FeedFlows } from '../bioload';
-import { aoIndex, I_KH, I_NO2, I_NO3, I_ORG, I_TAN, noIndex, type Model } from '../model';
+import { aoClockIndex, aoIndex, I_ACID, I_KH, I_NO2, I_NO3, I_ORG, I_TAN, noClockIndex, noIndex, type Model } from '../model';
 import type { Parameters } from '../parameters';
 import type { ResolvedZone } from '../presets';
 import type { Scenario } from '../scenario';
 import { LoadTooHighError, matureSteadyState } from '../steady-state';
 import { optionError } from './options';
+
+/** A zone that never eats has starved "for ever"; a year is as good (the late loss is reached within weeks). */
+const MAX_SETTLED_CLOCK_DAYS = 365;
 
 /** Writes the day-0 state into y (the model's conditions must be those of day 0). */
 export function initialState(scenario: Scenario, model: Model, zones: readonly ResolvedZone[], feedFlows: FeedFlows, kh0: number, y: number[], p: Parameters): void {
@@ -18,6 +21,12 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
   y[I_NO3] = w.no3MgN ?? tank.tapWater.no3MgN;
   y[I_ORG] = w.orgMgN ?? 0;
   y[I_KH] = kh0;
+  // Clocks start at 0 (fed or freshly arrived) and the community unadapted, unless settled below.
+  for (let z = 0; z < nz; z++) {
+    y[aoClockIndex(z)] = 0;
+    y[noClockIndex(z)] = 0;
+  }
+  y[I_ACID] = 0;
   const start = scenario.start;
   const act = model.current;
   if (start.kind === 'new') {
@@ -35,6 +44,8 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
       y[aoIndex(z)] = c.aoMgNPerDay / act.activityAo;
       y[noIndex(z)] = c.noMgNPerDay / act.activityNo;
     }
+    // Given capacities describe an established community: adapted to the tank's own water.
+    y[I_ACID] = model.acidTarget(kh0);
   } else {
     const load = start.loadMgNPerDay ?? feedFlows.excretedTan + feedFlows.toOrg;
     let ss;
@@ -52,6 +63,9 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
     for (let z = 0; z < nz; z++) {
       y[aoIndex(z)] = ss.capAo[z];
       y[noIndex(z)] = ss.capNo[z];
+      y[aoClockIndex(z)] = Math.min(ss.clockAo[z], MAX_SETTLED_CLOCK_DAYS);
+      y[noClockIndex(z)] = Math.min(ss.clockNo[z], MAX_SETTLED_CLOCK_DAYS);
     }
+    y[I_ACID] = ss.acid;
   }
 }

@@ -2,7 +2,7 @@
 import { ScenarioError, type Scenario } from '../scenario';
 import type { LimitChoices } from '../limits';
 import { resolveParameters, type ParameterOverrides, type Parameters } from '../parameters';
-import { aoIndex, I_PLANT, noIndex, type Model } from '../model';
+import { aoClockIndex, aoIndex, I_ACID, I_PLANT, noClockIndex, noIndex, type Model } from '../model';
 import { createOdexIntegrator, type SamplingMode, type SegmentIntegrator } from '../solver';
 import type { ForecastState } from './state';
 
@@ -83,6 +83,10 @@ export function resolveOptions(scenario: Scenario, options: ForecastOptions): Re
   };
 }
 
+const CLOCK_TOLERANCE_DAYS = 1e-3;
+/** Adaptation is a share (0–1) that changes over weeks. */
+const ACID_TOLERANCE = 1e-6;
+
 /**
  * The run's integrator with its tolerances: one relative tolerance, and absolute ones per
  * component (concentrations per litre; the plant-uptake total and capacities scale with V).
@@ -95,7 +99,11 @@ export function createIntegrator(options: ForecastOptions, opt: ResolvedOptions,
   for (let z = 0; z < model.zones.length; z++) {
     absolute[aoIndex(z)] = opt.capacityPerLitre * V;
     absolute[noIndex(z)] = opt.capacityPerLitre * V;
+    // Clocks in days: a minute's accuracy is plenty for a loss that switches over days.
+    absolute[aoClockIndex(z)] = CLOCK_TOLERANCE_DAYS;
+    absolute[noClockIndex(z)] = CLOCK_TOLERANCE_DAYS;
   }
+  absolute[I_ACID] = ACID_TOLERANCE;
   const tolerances = { relative: opt.relative, absolute };
   return options.integrator ? options.integrator(n, tolerances) : createOdexIntegrator(n, { tolerances, maxSteps: options.maxSteps, sampling: options.sampling });
 }

@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { oxygenSaturation } from '@/simulation/chemistry';
+import { ScenarioError } from '@/simulation/scenario';
 import { forecast } from '@/simulation/forecast';
 import { AERATION_OXYGEN_SHARE } from '@/simulation/presets';
 import { createMathjsIntegrator } from './reference-solver';
@@ -65,7 +66,14 @@ describe('nitrogen balance (model.md §6.7)', () => {
           fish: r.fish > 0 ? [{ species: 'platy', count: r.fish }] : [],
           events: r.events,
         };
-        const b = forecast(s, { horizonDays: 35 }).summary.nitrogenBalance;
+        let b;
+        try {
+          b = forecast(s, { horizonDays: 35 }).summary.nitrogenBalance;
+        } catch (e) {
+          // Zones too dim, still or airless to hold any nitrifiers cannot carry a settled load: refused, not a balance case.
+          fc.pre(!(e instanceof ScenarioError && 'start.loadMgNPerDay' in e.fields));
+          throw e;
+        }
         expect(Math.abs(b.relativeResidual)).toBeLessThan(1e-6);
       }),
       { seed: SEED, numRuns: 40 },
@@ -101,7 +109,8 @@ describe('analytic special cases', () => {
       start: { kind: 'explicit', capacities: [] },
       initialWater: { orgMgN: 2, tanMgN: 0, no3MgN: 0 },
     };
-    const f = forecast(s, { horizonDays: 20 });
+    // No nitrifiers at all: none arriving from outside either.
+    const f = forecast(s, { horizonDays: 20, parameters: { immigration: 0 } });
     const k = DEFAULT_PARAMETERS.ammonification;
     f.series.days.forEach((t, i) => {
       expectClose(f.series.orgMgN[i], 2 * Math.exp(-k * t), 1e-6, 1e-9);
@@ -118,7 +127,8 @@ describe('analytic special cases', () => {
       start: { kind: 'explicit', capacities: [{ zoneId: 'f', aoMgNPerDay: C, noMgNPerDay: 0 }] },
       initialWater: { tanMgN: 3 },
     };
-    const f = forecast(s, { horizonDays: 10, stepDays: 0.5, parameters: { muMaxAo: 1e-12, decayAo: 0, yieldAo: 0, decayNo: 0 } });
+    // No arrivals from outside and no oxygen cap (ν = 0 puts the cap at infinity): the plain saturating rate.
+    const f = forecast(s, { horizonDays: 10, stepDays: 0.5, parameters: { muMaxAo: 1e-12, decayAo: 0, yieldAo: 0, decayNo: 0, immigration: 0, oxygenPerTan: 0 } });
     const o2 = oxygenSaturation(20) * AERATION_OXYGEN_SHARE['air-stone'];
     const r = ((C / V) * o2) / (DEFAULT_PARAMETERS.kO2Ao + o2);
     const K = DEFAULT_PARAMETERS.kTanAo;

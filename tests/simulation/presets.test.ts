@@ -22,11 +22,18 @@ describe('zone presets (approximate, from memory)', () => {
   });
 
   it('gives a richer tank a faster start-up at the same filter', () => {
+    // Fishless start-up dosed 1 mg N/L a day: nitrite falls back below 0.2 mg N/L sooner where
+    // there is more surface to colonise (common practice). Early on the rich tank's inoculum is
+    // spread over more, poorer surfaces, so the comparison is the end of the start-up, not day 12.
     const run = (zones: typeof bare.zones) =>
-      forecast({ tank: { volumeL: 120, temperatureC: 25, ph: 7.6, zones }, start: { kind: 'new' }, events: [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 1 }, repeatEveryDays: 1 }] }, { horizonDays: 20 });
-    const aoBare = run(bare.zones).series.zones.reduce((s, z) => s + z.ao[12], 0);
-    const aoRich = run(rich.zones).series.zones.reduce((s, z) => s + z.ao[12], 0);
-    expect(aoRich).toBeGreaterThan(aoBare);
+      forecast({ tank: { volumeL: 120, temperatureC: 25, ph: 7.6, zones }, start: { kind: 'new' }, events: [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 1 }, repeatEveryDays: 1 }] }, { horizonDays: 60 });
+    const clearedDay = (zones: typeof bare.zones) => {
+      const { days, no2MgN } = run(zones).series;
+      const peak = no2MgN.indexOf(Math.max(...no2MgN));
+      const k = no2MgN.findIndex((v, i) => i > peak && v < 0.2);
+      return k < 0 ? Infinity : days[k];
+    };
+    expect(clearedDay(rich.zones)).toBeLessThan(clearedDay(bare.zones));
   });
 
   it('covers every filter kind, lets a surface skimmer lift aeration, and keeps factors in (0, 1]', () => {
@@ -69,7 +76,7 @@ describe('parameter table', () => {
       expect(p.default).toBeLessThanOrEqual(p.max);
       expect(p.unit.length).toBeGreaterThan(0);
       expect(p.source.length).toBeGreaterThan(5);
-      expect(['pub', 'practice', 'memory']).toContain(p.tag);
+      expect(['pub', 'practice', 'memory', 'judgement']).toContain(p.tag);
     }
   });
 
