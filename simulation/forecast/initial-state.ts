@@ -57,8 +57,9 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
       }
       throw e;
     }
-    y[I_TAN] = w.tanMgN ?? ss.tan + tank.tapWater.tanMgN;
-    y[I_NO2] = w.no2MgN ?? ss.no2 + tank.tapWater.no2MgN;
+    // A settled filter has long cleared what the tap brings: the water is at the steady state.
+    y[I_TAN] = w.tanMgN ?? ss.tan;
+    y[I_NO2] = w.no2MgN ?? ss.no2;
     y[I_ORG] = w.orgMgN ?? ss.org;
     for (let z = 0; z < nz; z++) {
       y[aoIndex(z)] = ss.capAo[z];
