@@ -45,7 +45,33 @@ export function forecastView(f: Forecast, band: EnsembleBand | null = null, memb
     band: band
       ? { tanMgN: spread(band.tanMgN), freeNh3MgL: spread(band.freeNh3MgL), no2MgN: spread(band.no2MgN), no3MgN: spread(band.no3MgN), members }
       : null,
+    spareCapacity: summary.spareCapacity
+      ? {
+          times: round4(summary.spareCapacity.times),
+          showsFirst: summary.spareCapacity.showsFirst,
+          low: band?.spareTimes ? round4(band.spareTimes.p10) : null,
+          high: band?.spareTimes ? round4(band.spareTimes.p90) : null,
+        }
+      : null,
   };
+}
+
+/** "about 3×": whole numbers from 2 up, one decimal below (1.4×). */
+function timesWord(x: number): string {
+  return x >= 2 ? `${Math.round(x)}×` : `${x.toFixed(1)}×`;
+}
+
+/**
+ * The spare capacity in one sentence, or null when the forecast has none (no fish, or the
+ * water already shows on a kit): what a keeper can add at once before a kit shows it.
+ */
+export function spareCapacitySentence(v: Pick<ForecastView, 'spareCapacity'>): string | null {
+  const s = v.spareCapacity;
+  if (!s) return null;
+  const reading = s.showsFirst === 'ammonia' ? 'ammonia' : 'nitrite';
+  const range = s.low !== null && s.high !== null && timesWord(s.low) !== timesWord(s.high) ? ` (${timesWord(s.low)} to ${timesWord(s.high)} across the forecast's range)` : '';
+  if (s.times < 1.05) return `Today the filter has almost no room to spare: any addition would show as ${reading} on a test kit until it has grown.`;
+  return `At the start, the filter could take about ${timesWord(s.times)} today's fish at once${range} before ${reading} shows on a test kit; beyond that it needs days to grow.`;
 }
 
 // ---- words ------------------------------------------------------------------------------

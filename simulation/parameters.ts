@@ -88,8 +88,8 @@ export const PARAMETERS = {
     description: 'loss rate of starving nitrifiers in their first days without food, at 20 °C',
   },
   starveLossLate: {
-    unit: '1/d', default: 0.06, min: 0.03, max: 0.1, tag: 'pub',
-    source: 'activity loss 60–80 % after more than 20 days of starvation (Ye et al., as above) ⇒ 0.05–0.08/d once starvation is long; their reactor was aerated 15 min in 6 h, so a fully aerated filter may lose faster (range)',
+    unit: '1/d', default: 0.075, min: 0.04, max: 0.12, tag: 'pub',
+    source: 'activity loss 60–80 % after more than 20 days of starvation (Ye et al., as above) ⇒ 0.05–0.08/d averaged from day 0, faster once the early phase is over; their reactor was aerated 15 min in 6 h, so a fully aerated filter may lose faster (range)',
     description: 'loss rate of nitrifiers that have starved for weeks, at 20 °C',
   },
   starveSwitchDays: {

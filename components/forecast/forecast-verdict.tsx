@@ -1,7 +1,7 @@
 import { View } from 'react-native';
 import { statusColorTokens, type StatusTone } from '@/constants/theme';
 import { useTheme } from '@/hooks/use-theme';
-import { forecastVerdict, type ForecastLevel } from '@/shared/forecast-view';
+import { forecastVerdict, spareCapacitySentence, type ForecastLevel } from '@/shared/forecast-view';
 import { acuteAmmoniaLine, forecastLimitRows, overText } from '@/lib/forecast-limits';
 import type { ForecastView } from '@/shared/schemas/plan';
 import type { NitrogenBasis } from '@/shared/schemas/preferences';
@@ -35,6 +35,7 @@ export function ForecastVerdict({
   const level = LEVEL[verdict.level];
   const tint = statusColorTokens[level.tone];
   const acute = acuteAmmoniaLine(view, basis);
+  const spare = spareCapacitySentence(view);
   return (
     <View testID={testID} style={{ gap: space.sm }} accessibilityRole="summary">
       <View
@@ -48,6 +49,7 @@ export function ForecastVerdict({
         <AppText weight="bold" testID={`${testID}-sentence`}>
           {verdict.sentence}
         </AppText>
+        {spare && !compact ? <AppText testID={`${testID}-spare`}>{spare}</AppText> : null}
       </View>
       {compact ? null : (
         // Two columns where the card is wide enough, one on a phone.

@@ -98,6 +98,15 @@ export const forecastViewSchema = z.object({
   peaks: z.object({ tan: peakSchema, freeNh3: peakSchema, no2: peakSchema, no3: peakSchema }),
   daysOver: z.object({ freeNh3: excursionSchema, tanChronic: excursionSchema, tanAcute: excursionSchema, no2: excursionSchema }),
   band: z.object({ tanMgN: spreadSchema, freeNh3MgL: spreadSchema, no2MgN: spreadSchema, no3MgN: spreadSchema, members: z.number().int() }).nullable(),
+  /**
+   * Times today's load the nitrifiers could clear at once before a kit shows a colour, with
+   * the ensemble's 10–90 % range when there is one (simulation/forecast/spare-capacity.ts).
+   */
+  spareCapacity: z
+    .object({ times: z.number(), showsFirst: z.enum(['ammonia', 'nitrite']), low: z.number().nullable(), high: z.number().nullable() })
+    .nullable()
+    // Views stored before the figure existed (lesson snapshots) read as "none".
+    .default(null),
 });
 export type ForecastView = z.infer<typeof forecastViewSchema>;
 

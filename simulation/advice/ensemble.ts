@@ -94,6 +94,8 @@ export interface EnsembleBand {
   /** total capacities at the water temperature, mg N/day */
   aoMgNPerDay: Band;
   noMgNPerDay: Band;
+  /** 10–50–90 % of the members' spare capacity at day 0 (null when no member has one) */
+  spareTimes: { p10: number; p50: number; p90: number } | null;
 }
 
 export interface EnsembleResult {
@@ -185,7 +187,15 @@ export function bandOf(forecasts: readonly Forecast[]): EnsembleBand {
     no3MgN: pick((f) => f.series.no3MgN),
     aoMgNPerDay: pick((f) => totalOf(f, 'ao')),
     noMgNPerDay: pick((f) => totalOf(f, 'no')),
+    spareTimes: spareQuantiles(forecasts),
   };
+}
+
+function spareQuantiles(forecasts: readonly Forecast[]): EnsembleBand['spareTimes'] {
+  const values = forecasts.flatMap((f) => (f.summary.spareCapacity ? [[f.summary.spareCapacity.times]] : []));
+  if (values.length === 0) return null;
+  const [p10, p50, p90] = seriesQuantiles(values, QS);
+  return { p10: p10[0], p50: p50[0], p90: p90[0] };
 }
 
 /** Keeper-facing words for what the band means. */

@@ -23,6 +23,7 @@ import { closeLedger, openLedger } from './balance';
 import { feedFlowsOf, segmentConditions, tankChemistry, type RunConditions } from './conditions';
 import type { EventScope } from './events';
 import { initialState } from './initial-state';
+import { spareCapacity } from './spare-capacity';
 import { createIntegrator, optionError, resolveOptions, type ForecastOptions } from './options';
 import { noEventPeaks } from './peaks';
 import { readingOf, type ForecastReading } from './reading';
@@ -99,6 +100,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
   } else {
     initialState(scenario, model, zones, conditions.feedFlows, chemistry.kh0, y, p);
   }
+  const spare = spareCapacity(model, y, conditions.feedFlows.excretedTan + conditions.feedFlows.toOrg);
   const times = sampleTimes(opt.horizon, opt.step, t0);
   const series = createSeries(times, zones.map((z) => z.id), chemistry.phModel === 'carbonate');
   const record = createRecorder(series, model, () => conditions.temperatureC);
@@ -152,7 +154,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
       // Samples at the horizon (after any events there).
       stepper.recordRest();
       const balance = closeLedger(ledger, model, y);
-      const summary = summarize({ tank, zones, model, series, eventPeaks, ledger, balance, startDay: t0, horizon: opt.horizon, options });
+      const summary = summarize({ tank, zones, model, series, eventPeaks, ledger, balance, startDay: t0, horizon: opt.horizon, options, spareCapacity: spare });
       return { series, summary, stats: { ...stepper.work } };
     },
   };

@@ -9,6 +9,7 @@ import type { NitrogenBalance, NitrogenLedger } from './balance';
 import type { ForecastOptions } from './options';
 import { higherPeak, type EventPeaks } from './peaks';
 import type { ForecastSeries } from './series';
+import type { SpareCapacity } from './spare-capacity';
 
 export interface ForecastSummary {
   peaks: { tan: Peak; freeNh3: Peak; no2: Peak; no3: Peak };
@@ -25,6 +26,8 @@ export interface ForecastSummary {
     recentDoseMgNPerDay: number;
   };
   nitrogenBalance: NitrogenBalance;
+  /** At the forecast's first day: times today's load the populations clear before a kit shows it (null: no load, or the water already shows). */
+  spareCapacity: SpareCapacity | null;
 }
 
 export interface SummaryInput {
@@ -40,6 +43,7 @@ export interface SummaryInput {
   startDay: number;
   horizon: number;
   options: Pick<ForecastOptions, 'limits' | 'limitChoices'>;
+  spareCapacity: SpareCapacity | null;
 }
 
 export function summarize(input: SummaryInput): ForecastSummary {
@@ -83,6 +87,7 @@ export function summarize(input: SummaryInput): ForecastSummary {
       recentDoseMgNPerDay: recentDose,
     },
     nitrogenBalance: input.balance,
+    spareCapacity: input.spareCapacity,
   };
 }
 

@@ -25,5 +25,6 @@ export function fixtureView(o: { tanPeak?: number; no2Peak?: number; no2Over?: {
     peaks: { tan: { value: tanPeak, day: 10 }, freeNh3: { value: tanPeak * 0.015, day: 10 }, no2: { value: no2Peak, day: 16 }, no3: { value: 8, day: 40 } },
     daysOver: { freeNh3: none, tanChronic: o.tanOver ?? none, tanAcute: none, no2: o.no2Over ?? none },
     band: null,
+    spareCapacity: null,
   };
 }
