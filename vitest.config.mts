@@ -9,7 +9,7 @@ export default defineConfig({
     projects: [
       {
         extends: true,
-        test: { name: 'unit', include: ['tests/simulation/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
+        test: { name: 'unit', include: ['tests/simulation/**/*.test.ts', 'tests/validation/**/*.test.ts', 'tests/unit/**/*.test.ts'], environment: 'node' },
       },
       {
         extends: true,

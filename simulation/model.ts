@@ -176,12 +176,16 @@ function fedShareOf(growth: number, fedLoss: number, qHalf: number): number {
   return den > 0 ? g2 / den : 1;
 }
 
-/** Late-loss weight after τ days of starvation: a smooth switch at `switchDays`. */
+/**
+ * Late-loss weight after τ days of starvation: a smooth but steep switch at `switchDays`
+ * (τ⁸/(τ⁸ + s⁸)), because the measured loss is small for ten days and large after twenty.
+ */
 function lateWeight(tau: number, switchDays: number): number {
   const t2 = tau * tau;
   const t4 = t2 * t2;
   const s2 = switchDays * switchDays;
-  return t4 / (t4 + s2 * s2);
+  const s4 = s2 * s2;
+  return (t4 * t4) / (t4 * t4 + s4 * s4);
 }
 
 export function createModel(zones: readonly ResolvedZone[], volumeL: number, p: Parameters): Model {

@@ -83,17 +83,17 @@ export const PARAMETERS = {
     description: 'loss rate of fed nitrite oxidisers at 20 °C',
   },
   starveLossEarly: {
-    unit: '1/d', default: 0.012, min: 0.005, max: 0.022, tag: 'pub',
+    unit: '1/d', default: 0.01, min: 0.004, max: 0.022, tag: 'pub',
     source: 'biofilm nitrifiers lose < 20 % of activity in 10 days without ammonia (Ye, Hu, Poussade, Keller & Yuan, MBBR starvation study; journal unconfirmed) ⇒ ≤ 0.022/d; N. europaea starved 342 d kept its activity (Wilhelm et al. 1998). Abstracts (SOURCES.md §1–2, §9)',
     description: 'loss rate of starving nitrifiers in their first days without food, at 20 °C',
   },
   starveLossLate: {
-    unit: '1/d', default: 0.075, min: 0.04, max: 0.12, tag: 'pub',
+    unit: '1/d', default: 0.085, min: 0.04, max: 0.12, tag: 'pub',
     source: 'activity loss 60–80 % after more than 20 days of starvation (Ye et al., as above) ⇒ 0.05–0.08/d averaged from day 0, faster once the early phase is over; their reactor was aerated 15 min in 6 h, so a fully aerated filter may lose faster (range)',
     description: 'loss rate of nitrifiers that have starved for weeks, at 20 °C',
   },
   starveSwitchDays: {
-    unit: 'd', default: 14, min: 8, max: 20, tag: 'judgement',
+    unit: 'd', default: 12, min: 8, max: 20, tag: 'judgement',
     source: 'between the 10 days of small loss and the 20 days of large loss reported by Ye et al. [pub]; the switch time itself is a judgement',
     description: 'days without food after which starving nitrifiers lose activity at the late rate (half-way point)',
   },
@@ -148,7 +148,7 @@ export const PARAMETERS = {
     description: 'loss of nitrification rate per pH unit below the optimum, before the community adapts',
   },
   acidFloor: {
-    unit: '-', default: 0.3, min: 0.1, max: 0.6, tag: 'judgement',
+    unit: '-', default: 0.5, min: 0.2, max: 0.8, tag: 'judgement',
     source: 'acclimated biofilms nitrify at near-neutral specific rates at pH 4.3–5 (Tarre & Green 2004, AEM 70:6481) [pub]; acidophilic ammonia oxidisers grow at pH 4–5.5 (Lehtovirta-Morley et al. 2011) [pub]; no value for low-ammonia tank filters found, so the floor is a judgement with a wide range',
     description: 'share of the neutral rate an acid-adapted community keeps at pH 5.5–6.5',
   },

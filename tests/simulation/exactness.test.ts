@@ -82,7 +82,7 @@ describe('nitrogen balance (model.md §6.7)', () => {
 });
 
 describe('agreement with mathjs solveODE on the same right-hand side', () => {
-  it('agrees to 1e-4 relative on a mature tank with events', () => {
+  it('agrees to 3e-4 relative on a mature tank with events (the accuracy the engine promises: solver.ts)', () => {
     const s = matureWithPlaties(25, [
       { type: 'add-fish', day: 3, fish: { species: 'platy', count: 20 } },
       { type: 'water-change', day: 6, percent: 30 },
@@ -98,7 +98,7 @@ describe('agreement with mathjs solveODE on the same right-hand side', () => {
       [odex.series.khDegrees!, mathjs.series.khDegrees!],
       ...odex.series.zones.map((z, i): [number[], number[]] => [z.ao, mathjs.series.zones[i].ao]),
     ];
-    for (const [a, b] of pairs) a.forEach((v, i) => expectClose(v, b[i], 1e-4, 1e-7));
+    for (const [a, b] of pairs) a.forEach((v, i) => expectClose(v, b[i], 3e-4, 1e-7));
   });
 });
 

@@ -8,7 +8,7 @@ import { forecast } from '@/simulation/forecast';
 import { DEFAULT_PARAMETERS } from '@/simulation/parameters';
 import { peakOf, settledBelowDay } from '@/simulation/series-stats';
 import type { ScenarioInput } from '@/simulation/scenario';
-import { matureWithPlaties, startUp, tank } from './scenarios';
+import { matureWithPlaties, startUp, tank } from '../simulation/scenarios';
 
 const before = { horizonDays: 60, eventSampling: 'before' as const };
 
