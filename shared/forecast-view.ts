@@ -3,7 +3,7 @@
  * summary show (shared/schemas/plan.ts `ForecastView`). Pure; runs on the server (saved
  * plans) and in the browser (live drafts), so both draw the same numbers.
  */
-import type { Forecast } from '../simulation/forecast';
+import { spareSentence, type Forecast } from '../simulation/forecast';
 import type { EnsembleBand } from '../simulation/advice/ensemble';
 import type { ForecastView } from './schemas/plan';
 import type { LimitLevel } from './schemas/tank';
@@ -56,22 +56,9 @@ export function forecastView(f: Forecast, band: EnsembleBand | null = null, memb
   };
 }
 
-/** "about 3×": whole numbers from 2 up, one decimal below (1.4×). */
-function timesWord(x: number): string {
-  return x >= 2 ? `${Math.round(x)}×` : `${x.toFixed(1)}×`;
-}
-
-/**
- * The spare capacity in one sentence, or null when the forecast has none (no fish, or the
- * water already shows on a kit): what a keeper can add at once before a kit shows it.
- */
+/** The spare capacity in one sentence (the engine's wording, simulation/forecast/spare-capacity.ts), or null. */
 export function spareCapacitySentence(v: Pick<ForecastView, 'spareCapacity'>): string | null {
-  const s = v.spareCapacity;
-  if (!s) return null;
-  const reading = s.showsFirst === 'ammonia' ? 'ammonia' : 'nitrite';
-  const range = s.low !== null && s.high !== null && timesWord(s.low) !== timesWord(s.high) ? ` (${timesWord(s.low)} to ${timesWord(s.high)} across the forecast's range)` : '';
-  if (s.times < 1.05) return `Today the filter has almost no room to spare: any addition would show as ${reading} on a test kit until it has grown.`;
-  return `At the start, the filter could take about ${timesWord(s.times)} today's fish at once${range} before ${reading} shows on a test kit; beyond that it needs days to grow.`;
+  return v.spareCapacity ? spareSentence(v.spareCapacity) : null;
 }
 
 // ---- words ------------------------------------------------------------------------------

@@ -34,7 +34,9 @@ export interface SteadyState {
 /** No steady state: the load exceeds what the zones can ever carry. */
 export class LoadTooHighError extends Error {
   constructor(readonly loadMgNPerDay: number, readonly maxMgNPerDay: number) {
-    super(`A load of ${loadMgNPerDay.toPrecision(3)} mg N/day exceeds what these zones can carry (about ${maxMgNPerDay.toPrecision(3)} mg N/day).`);
+    super(
+      `These fish put about ${loadMgNPerDay.toPrecision(3)} mg of ammonia-nitrogen a day into the water; the tank's filter and surfaces can clear about ${maxMgNPerDay.toPrecision(2)} at most, even fully grown. Keep fewer fish or give the filter more media.`,
+    );
     this.name = 'LoadTooHighError';
   }
 }

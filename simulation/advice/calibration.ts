@@ -23,6 +23,7 @@
  * hypercube through the normal quantile, with the other model values at their defaults — the
  * fit was made at those values, so letting them vary independently would ignore that.
  */
+import type { SpareCapacity } from '../forecast';
 import type { Scenario } from '../scenario';
 import { createForecastSession, forecastParsed, type Forecast, type ForecastOptions } from '../forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../parameters';
@@ -89,6 +90,8 @@ export interface CalibrationResult {
   band: { prior: EnsembleBand; calibrated: EnsembleBand; meanWidthTan: { prior: number; calibrated: number }; meanWidthNo2: { prior: number; calibrated: number } };
   explanation: string[];
   cautions: string[];
+  /** capacity test only: spare capacity at the tank's own load from the fitted capacities */
+  spareCapacity?: SpareCapacity | null;
 }
 
 interface Base {

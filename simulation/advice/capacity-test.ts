@@ -12,7 +12,7 @@
  */
 import type { Scenario } from '../scenario';
 import { ammoniaSolutionForDose, ammoniumChlorideForDose, type AmmoniaSolution } from '../dosing';
-import { forecastParsed } from '../forecast';
+import { forecastParsed, spareSentence } from '../forecast';
 import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS } from './cautions';
 import { calibrate, type CalibrationResult } from './calibration';
 import type { KitSpec } from './kit-error';
@@ -76,13 +76,25 @@ export function estimateCapacityFromTest(
   readings: { hour: number; tanMgN: number; no2MgN?: number }[],
   kit?: KitSpec,
 ): CalibrationResult {
-  const dosed = withEvents(scenario, [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: doseMgNPerL } }]);
+  // The prior is the tank as it stands (a settled tank at its own load), held as explicit
+  // capacities: feeding stops for the test, which must not shrink the prior to nothing.
+  const now = forecastParsed(scenario, { horizonDays: 0.01, stepDays: 0.01 });
+  const standing: Scenario = {
+    ...scenario,
+    start: { kind: 'explicit', capacities: now.series.zones.map((z) => ({ zoneId: z.zoneId, aoMgNPerDay: z.ao[0], noMgNPerDay: z.no[0] })) },
+    initialWater: { ...scenario.initialWater, tanMgN: now.series.tanMgN[0], no2MgN: now.series.no2MgN[0] },
+  };
+  const dosed = withEvents(standing, [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: doseMgNPerL } }]);
   const hasNitrite = readings.some((r) => r.no2MgN !== undefined);
-  return calibrate({
+  const fit = calibrate({
     scenario: { ...dosed, feeding: { mode: 'grams', gramsPerDay: 0 } },
     readings: readings.map((r) => ({ day: r.hour / 24, tanMgN: r.tanMgN, no2MgN: r.no2MgN })),
     kits: kit ? { tan: kit, no2: kit } : undefined,
     fit: hasNitrite ? ['ao', 'no'] : ['ao'],
     forecastDays: 7,
   });
+  // Spare capacity at the tank's own fish and feeding, from the fitted capacities.
+  const settled = forecastParsed({ ...scenario, start: fit.calibratedScenario.start, initialWater: { tanMgN: 0, no2MgN: 0 }, events: [] }, { horizonDays: 0.01, stepDays: 0.01, parameters: fit.calibratedParameters });
+  const spare = settled.summary.spareCapacity;
+  return { ...fit, spareCapacity: spare, explanation: spare ? [...fit.explanation, spareSentence(spare)] : fit.explanation };
 }

@@ -219,6 +219,8 @@ export const calibrationResponseSchema = z.object({
     meanWidthTan: z.object({ prior: z.number(), calibrated: z.number() }),
     meanWidthNo2: z.object({ prior: z.number(), calibrated: z.number() }),
   }),
+  /** capacity test only: spare capacity at the tank's own load (simulation/forecast/spare-capacity.ts) */
+  spareCapacity: z.object({ times: z.number(), showsFirst: z.enum(['ammonia', 'nitrite']) }).nullable().optional(),
   ...words,
 });
 

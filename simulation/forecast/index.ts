@@ -6,4 +6,4 @@ export type { ForecastState } from './state';
 export type { ForecastReading } from './reading';
 export type { ForecastSummary } from './summary';
 export type { NitrogenBalance } from './balance';
-export { KIT_FIRST_STEP_MG_N, type SpareCapacity } from './spare-capacity';
+export { KIT_FIRST_STEP_MG_N, spareSentence, type SpareCapacity } from './spare-capacity';

@@ -1,6 +1,6 @@
 /** Day-0 water and populations of a scenario: a new tank's inoculum, given capacities, or a mature tank's steady state. */
 import type { FeedFlows } from '../bioload';
-import { aoClockIndex, aoIndex, I_ACID, I_KH, I_NO2, I_NO3, I_ORG, I_TAN, noClockIndex, noIndex, type Model } from '../model';
+import { acidFloorAt, aoClockIndex, aoIndex, I_ACID, phFactor, I_KH, I_NO2, I_NO3, I_ORG, I_TAN, noClockIndex, noIndex, type Model } from '../model';
 import type { Parameters } from '../parameters';
 import type { ResolvedZone } from '../presets';
 import type { Scenario } from '../scenario';
@@ -9,6 +9,20 @@ import { optionError } from './options';
 
 /** A zone that never eats has starved "for ever"; a year is as good (the late loss is reached within weeks). */
 const MAX_SETTLED_CLOCK_DAYS = 365;
+
+/**
+ * A load the zones cannot carry, named by its cause: the acid water when nitrification at a
+ * neutral pH would carry it (the pH factor scales every zone's rate), else the stocking.
+ */
+function refusalOf(e: LoadTooHighError, loadField: string, ph: number, p: Parameters) {
+  const f = Math.max(phFactor(ph, p), acidFloorAt(ph, p.acidFloor));
+  if (f < 1 && (f <= 0 || e.loadMgNPerDay <= e.maxMgNPerDay / f)) {
+    return optionError('tank.ph', f > 0
+        ? `At pH ${ph} nitrifiers work at about ${Math.round(100 * f)} % of their rate at neutral pH: too slowly for this stocking. Raise the pH gradually or keep fewer fish.`
+        : `At pH ${ph} nitrifiers stop working: no filter can keep up. Raise the pH gradually (above 5.5) before keeping fish here.`);
+  }
+  return optionError(loadField, e.message);
+}
 
 /** Writes the day-0 state into y (the model's conditions must be those of day 0). */
 export function initialState(scenario: Scenario, model: Model, zones: readonly ResolvedZone[], feedFlows: FeedFlows, kh0: number, y: number[], p: Parameters): void {
@@ -52,9 +66,7 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
     try {
       ss = matureSteadyState(model, load, kh0);
     } catch (e) {
-      if (e instanceof LoadTooHighError) {
-        throw optionError(start.loadMgNPerDay === undefined ? 'fish' : 'start.loadMgNPerDay', e.message);
-      }
+      if (e instanceof LoadTooHighError) throw refusalOf(e, start.loadMgNPerDay === undefined ? 'fish' : 'start.loadMgNPerDay', tank.ph, p);
       throw e;
     }
     // A settled filter has long cleared what the tap brings: the water is at the steady state.

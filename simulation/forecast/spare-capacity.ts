@@ -47,3 +47,19 @@ export function spareCapacity(model: Model, y: readonly number[], load: number):
   const byNo2 = no / load;
   return byTan <= byNo2 ? { times: byTan, showsFirst: 'ammonia' } : { times: byNo2, showsFirst: 'nitrite' };
 }
+
+/** "about 3×": whole numbers from 2 up, one decimal below (1.4×). */
+function timesWord(x: number): string {
+  return x >= 2 ? `${Math.round(x)}×` : `${x.toFixed(1)}×`;
+}
+
+/**
+ * What a keeper can add at once before a kit shows it, in one sentence; `low`–`high` is the
+ * forecast's 10–90 % range when there is one.
+ */
+export function spareSentence(s: SpareCapacity & { low?: number | null; high?: number | null }): string {
+  const reading = s.showsFirst;
+  if (s.times < 1.05) return `Today the filter has almost no room to spare: any addition would show as ${reading} on a test kit until it has grown.`;
+  const range = s.low != null && s.high != null && timesWord(s.low) !== timesWord(s.high) ? ` (${timesWord(s.low)} to ${timesWord(s.high)} across the forecast's range)` : '';
+  return `The filter could take about ${timesWord(s.times)} today's fish at once${range} before ${reading} shows on a test kit; beyond that it needs days to grow.`;
+}

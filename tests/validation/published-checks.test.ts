@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { forecast, type Forecast } from '@/simulation/forecast';
 import { KIT_FIRST_STEP_MG_N } from '@/simulation/forecast/spare-capacity';
 import { zonesFromDescription, type TankDescription } from '@/simulation/presets';
-import type { ScenarioInput } from '@/simulation/scenario';
+import { ScenarioError, type ScenarioInput } from '@/simulation/scenario';
 import { peakOf } from '@/simulation/series-stats';
 
 type Tank = ScenarioInput['tank'];
@@ -228,6 +228,19 @@ describe('soft, acid water (acid-adapted films nitrify: Tarre & Green 2004; acid
       expect(f.summary.peaks.tan.value).toBeLessThan(0.5 * f.summary.limits.tanChronic.value);
       expect(f.summary.peaks.no2.value).toBeLessThan(0.5 * f.summary.limits.nitrite.value);
     }
+  });
+
+  it('names the pH, not the fish, when acid water is why a stocking cannot be carried', () => {
+    const refusal = (ph: number) => {
+      try {
+        forecast({ ...settledTank([], {}, { ph }), fish: neons(200) }, { horizonDays: 1 });
+        return null;
+      } catch (e) {
+        return e instanceof ScenarioError ? Object.keys(e.fields) : ['not a ScenarioError'];
+      }
+    };
+    expect(refusal(7.2)).toBeNull();
+    expect(refusal(4.5)).toEqual(['tank.ph']);
   });
 
   it('nitrifies more slowly in acid water: a new tank at pH 6.0 clears later than at pH 7.5', () => {
