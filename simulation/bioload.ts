@@ -1,5 +1,5 @@
 /**
- * Fish as the source of nitrogen (model.md §4). Pure arithmetic; the engine calls
+ * Fish as the source of nitrogen (MODEL.md §6). Pure arithmetic; the engine calls
  * `feedNitrogenFlows` once per integration segment.
  */
 import { SHAPE_CLASSES, findSpecies, type ShapeClass } from './catalogue';

@@ -5,12 +5,12 @@
  */
 import type { ShapeClassId } from './scenario';
 
-/** Body-shape classes; `a` values (g/cm^b) are from memory (model.md §4). */
+/** Body-shape classes; `a` values (g/cm^b) are from memory (MODEL.md §6.1). */
 export const SHAPE_CLASSES: Record<ShapeClassId, { a: number; note: string }> = {
-  'eel-like': { a: 0.002, note: 'loaches, eels: 0.001–0.003 (model.md §4, memory)' },
+  'eel-like': { a: 0.002, note: 'loaches, eels: 0.001–0.003 (MODEL.md §6.1, memory)' },
   slender: { a: 0.006, note: 'rasboras, danios, pencilfish (memory)' },
-  ordinary: { a: 0.01, note: 'ordinary fusiform fish (model.md §4, memory)' },
-  deep: { a: 0.025, note: 'angelfish, discus, gouramis: 0.02–0.03 (model.md §4, memory)' },
+  ordinary: { a: 0.01, note: 'ordinary fusiform fish (MODEL.md §6.1, memory)' },
+  deep: { a: 0.025, note: 'angelfish, discus, gouramis: 0.02–0.03 (MODEL.md §6.1, memory)' },
   shrimp: { a: 0.008, note: 'dwarf and Amano shrimp (memory)' },
   snail: { a: 0.02, note: 'soft-tissue equivalent of a snail, shell excluded (memory)' },
 };

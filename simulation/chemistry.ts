@@ -68,7 +68,7 @@ export function carbonatePK1(temperatureC: number): number {
   return -(-356.3094 - 0.06091964 * t + 21834.37 / t + 126.8339 * Math.log10(t) - 1684915 / (t * t));
 }
 
-/** mg CO2/L per °dKH at pH = pK1 (bicarbonate of 1 °dKH × CO2 molar mass; model.md §3). */
+/** mg CO2/L per °dKH at pH = pK1 (bicarbonate of 1 °dKH × CO2 molar mass; MODEL.md §4.3). */
 export const CO2_PER_DKH = 15.66;
 
 /** Dissolved CO2 (mg/L) from carbonate hardness and pH: 15.66·KH·10^(pK1 − pH). */

@@ -1,7 +1,7 @@
 /**
  * Unit conversions used across Shoalshift. Molar masses are IUPAC standard atomic weights
  * (N 14.007, H 1.008, O 15.999, Cl 35.45); derived values are given to the precision the
- * science brief (model.md §5) checks.
+ * model description (MODEL.md §4.6) lists.
  */
 
 /** Molar masses in g/mol (IUPAC). */

@@ -9,7 +9,7 @@
  * up to the largest count the smallest batch allows; the plan finishing first wins, fewer
  * batches on a tie. A branch that cannot beat the best finish found so far is cut.
  * Candidates are simulated only to `SETTLE_DAYS` after their last batch (the peak of an
- * addition passes within about two weeks, model.md §6.3); the winner is then checked on the
+ * addition passes within about two weeks, MODEL.md §9.2); the winner is then checked on the
  * full horizon and against the whole ensemble, and if a member outside the bounding set
  * breaks the 90th-percentile bound it joins the set and the search runs again.
  *

@@ -1,5 +1,5 @@
 /**
- * Calibration to a tank's own test log (issue 4, point 6; model.md §7).
+ * Calibration to a tank's own test log (issue 4, point 6; MODEL.md §5.2).
  *
  * Unknowns: a factor on the ammonia oxidisers' and on the nitrite oxidisers' capacity at the
  * start of the log (each zone keeps its share), and optionally a growth-speed multiplier on

@@ -1,5 +1,5 @@
 /**
- * Uncertainty band of a forecast (model.md §7): an ensemble of forecasts over the ranges of
+ * Uncertainty band of a forecast (MODEL.md §5.2): an ensemble of forecasts over the ranges of
  * the engine's parameter table and over feeding, drawn by Latin hypercube sampling with a
  * seed, summarised as 10th, 50th and 90th percentiles per output day. The same seed gives the
  * same band.

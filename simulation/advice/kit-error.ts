@@ -1,7 +1,7 @@
 /**
  * Error model for colour-chart test kits. A colour chart reports the swatch nearest the
  * water's colour, so a reading is the true value rounded to the chart's step h (0.25–0.5 mg/L
- * on common kits, model.md §7). Rounding error spread evenly over one step has standard
+ * on common kits, MODEL.md §5.2). Rounding error spread evenly over one step has standard
  * deviation h/√12 (the variance of a uniform distribution of width h); on top of it comes a
  * share proportional to the value (colour judgement, reagent age, lighting), and the two add
  * in quadrature. A reading of 0 is censored: it says only that the true value lay below half

@@ -1,6 +1,6 @@
 /**
  * Keeping a biofilter for a planned restock (issue 4, point 3). After a rehoming, or while a
- * tank stands empty, the nitrifiers shrink toward the smaller load (model.md §6.4). A daily
+ * tank stands empty, the nitrifiers shrink toward the smaller load (MODEL.md §3.4). A daily
  * supplementary ammonia dose from the removal day until the day before the restock keeps
  * them at the size the restocked tank needs.
  *
@@ -8,7 +8,7 @@
  * (the engine's mature steady state for that stocking). Dose: found by bisection on the daily
  * dose (capacity at the restock day rises with the dose) with the engine at its default
  * values. Feeding: food beyond what the remaining fish eat still becomes ammonia through
- * detritus (model.md §4), so grams-per-day feeding is cut in proportion to the fish mass left;
+ * detritus (MODEL.md §6.2), so grams-per-day feeding is cut in proportion to the fish mass left;
  * feeding given as a share of body mass already follows the fish.
  */
 import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';

@@ -2,7 +2,7 @@
  * Rescue water changes (issue 4, point 4): when a plan's forecast crosses a limit, the
  * smallest schedule of water changes (day and percent) that keeps it under. Water changes
  * dilute dissolved species exactly and bring in the tap water's ammonia (chloramine) and
- * nitrate (model.md §6.6; the engine mixes with the tank's tap-water setting).
+ * nitrate (MODEL.md §7.1; the engine mixes with the tank's tap-water setting).
  *
  * Search, on the upper-edge judge (./judge): find the first crossing; put a change on the
  * morning of its day (events come before that day's samples), of the smallest percent on the grid that pushes the first

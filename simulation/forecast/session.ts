@@ -1,6 +1,6 @@
 /**
  * forecast(scenario, options): the nitrogen-cycle forecast of one tank over a timeline of
- * events (model.md). Pure: no I/O. Invalid input throws ScenarioError (with `.fields`)
+ * events (MODEL.md §7, §8). Pure: no I/O. Invalid input throws ScenarioError (with `.fields`)
  * before any solving; solver failure throws SolverError.
  *
  * Resumable runs: `createForecastSession` integrates forward on demand and hands out a

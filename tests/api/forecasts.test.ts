@@ -110,7 +110,7 @@ describe('POST /api/plans/:id/forecast', () => {
     const changed = (await c.post(`/api/plans/${plan.id}/forecast`).expect(200)).body;
     expect(changed.cached).toBe(false);
     expect(changed.inputHash).not.toBe(first.inputHash);
-    // Twice the fish on a settled biofilter: a higher ammonia peak (model.md §6: spike grows with the added load).
+    // Twice the fish on a settled biofilter: a higher ammonia peak (MODEL.md §9.2: the spike grows with the added load).
     expect(changed.forecast.peaks.tan.value).toBeGreaterThan(first.forecast.peaks.tan.value);
     // Another plan on the same tank with the same events under another name: the same inputs.
     const twin = await createPlan(ctx.deps.dataSource, plan.tankId, {

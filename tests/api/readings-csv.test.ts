@@ -36,7 +36,7 @@ describe('CSV import', () => {
     expect((await k.upload(`${base}/import/commit`, GOOD).expect(201)).body).toEqual({ imported: 3 });
     const page = (await k.get(base).expect(200)).body;
     expect(page.total).toBe(3);
-    // NO2− as ion 0.25 → 0.25 × 14.007/46.005 mg N/L (model.md §5).
+    // NO2− as ion 0.25 → 0.25 × 14.007/46.005 mg N/L (MODEL.md §4.6).
     expect(page.readings[1].no2MgN).toBeCloseTo(0.25 * 0.3045, 4);
   });
 

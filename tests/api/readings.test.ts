@@ -24,10 +24,10 @@ describe('POST /api/tanks/:id/readings', () => {
     expect(readingSchema.parse(res.body)).toMatchObject({ takenAt: '2026-03-01T07:30:00.000Z', basis: 'N', tanMgN: 0.25, no2MgN: 0, no3MgN: 10, ph: 7.4, note: 'before feeding' });
   });
 
-  it('converts a test read "as the ion" to mg N/L with the IUPAC molar masses (model.md §5)', async () => {
+  it('converts a test read "as the ion" to mg N/L with the IUPAC molar masses (MODEL.md §4.6)', async () => {
     const { k, url } = await keeperWithTank();
     const res = await k.post(url, { takenAt: '2026-03-01T08:00:00Z', basis: 'ion', tan: 1, no2: 1, no3: 50 }).expect(201);
-    // NH4+ → N 0.7765, NO2− → N 0.3045, NO3− → N 0.2259 (model.md §5).
+    // NH4+ → N 0.7765, NO2− → N 0.3045, NO3− → N 0.2259 (MODEL.md §4.6).
     expect(res.body.tanMgN).toBeCloseTo(0.7765, 4);
     expect(res.body.no2MgN).toBeCloseTo(0.3045, 4);
     expect(res.body.no3MgN).toBeCloseTo(50 * 0.2259, 3);

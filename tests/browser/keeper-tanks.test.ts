@@ -80,7 +80,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('keeper tanks at %s size
     await page.getByTestId('readings-table').scrollIntoViewIfNeeded();
     await screenshot(page, `keeper-test-log-${size}`);
 
-    // US gallons, °F, as the ion: 120 L = 31.7 US gal; 25 °C = 77 °F; nitrate 10 mg N/L = 44.3 mg NO3−/L (model.md §5).
+    // US gallons, °F, as the ion: 120 L = 31.7 US gal; 25 °C = 77 °F; nitrate 10 mg N/L = 44.3 mg NO3−/L (MODEL.md §4.6).
     await setUnits(page, 'USgal', 'F', 'ion');
     await screenshot(page, `keeper-settings-${size}`);
     await page.goto('/');

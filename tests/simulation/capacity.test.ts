@@ -21,7 +21,7 @@ describe('steadyStateCapacity', () => {
     const large = steadyStateCapacity(parseScenario(matureWithPlaties(40)));
     expect(large.aoMgNPerDay).toBeGreaterThan(small.aoMgNPerDay);
     const byLoad = steadyStateCapacity(parseScenario(matureWithPlaties(10)), { loadMgNPerDay: 30 });
-    // Capacity at saturating food exceeds the load it oxidises at the low steady TAN (Monod, model.md §1).
+    // Capacity at saturating food exceeds the load it oxidises at the low steady TAN (Monod, MODEL.md §3.2).
     expect(byLoad.aoMgNPerDay).toBeGreaterThan(30);
   });
 

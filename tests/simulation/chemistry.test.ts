@@ -18,8 +18,8 @@ const limitsAt = (c: LimitConditions, choices?: LimitChoices) => limitRecord(tan
 import { expectClose, sig } from './helpers';
 
 describe('free-ammonia fraction (Emerson et al. 1975)', () => {
-  it('matches the check values of model.md §3 to 4 significant digits', () => {
-    // Emerson et al. 1975 formula; check values as printed in model.md §3 (4 s.f.).
+  it('matches the check values of MODEL.md §4.1 to 4 significant digits', () => {
+    // Emerson et al. 1975 formula; check values as listed in MODEL.md §4.1 (4 s.f.).
     expectClose(freeAmmoniaFraction(25, 7.0), 0.00564, 0, 1.5e-6);
     expectClose(freeAmmoniaFraction(20, 8.0), 0.03807, 0, 5e-6);
     expectClose(freeAmmoniaFraction(28, 7.5), 0.02164, 0, 5e-6);
@@ -60,7 +60,7 @@ describe('US EPA (2013) ammonia criteria, EPA-822-R-13-001', () => {
   });
 
   it('gives CCC 1.367 at pH 7, 25 °C and CMC 2.58 / CCC 0.563 at pH 8, 25 °C', () => {
-    // EPA 2013 values as quoted in model.md §3.
+    // EPA 2013 values as listed in MODEL.md §4.5.
     expectClose(epaChronicTan(7, 25), 1.367, 0, 0.0005);
     expectClose(epaAcuteTan(8, 25), 2.58, 0, 0.005);
     expectClose(epaChronicTan(8, 25), 0.563, 0, 0.0005);
@@ -91,8 +91,8 @@ describe('carbonate system (Plummer & Busenberg 1982)', () => {
     expectClose(phFromCarbonate(4, co2, 25), 7.2, 1e-12);
   });
 
-  it('reads the trade rule of thumb about 10–20 % low against the formula (model.md §3)', () => {
-    // model.md §3: CO2 ≈ 3·KH·10^(7−pH) [practice] reads 10–20 % low (20.5 % at 20 °C).
+  it('reads the trade rule of thumb about 10–20 % low against the formula (MODEL.md §4.3)', () => {
+    // MODEL.md §4.3: CO2 ≈ 3·KH·10^(7−pH) [practice] reads 10–20 % low (20.5 % at 20 °C).
     for (const t of [20, 25, 28]) {
       const ratio = carbonateCo2RuleOfThumb(4, 7) / carbonateCo2(4, 7, t);
       expect(ratio).toBeGreaterThan(0.79);

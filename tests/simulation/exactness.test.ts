@@ -42,7 +42,7 @@ const scenarioArb = fc.record({
   events: fc.array(eventArb, { maxLength: 8 }),
 });
 
-describe('nitrogen balance (model.md §6.7)', () => {
+describe('nitrogen balance (MODEL.md §8.4)', () => {
   it(`closes to 1e-6 relative over random scenarios (fast-check seed ${SEED})`, () => {
     fc.assert(
       fc.property(scenarioArb, (r) => {

@@ -51,7 +51,7 @@ describe('resumable forecasts (createForecastSession, options.from)', () => {
     const state = createForecastSession(s, { horizonDays: 25, stepDays: 0.5 }).advanceTo(6);
     const rest = forecastParsed(added, { horizonDays: 25, stepDays: 0.5, from: state });
     expectSameFrom(rest, full);
-    expect(rest.summary.peaks.tan.value).toBeGreaterThan(rest.series.tanMgN[0] * 1.5); // the addition shows (model.md §6.3)
+    expect(rest.summary.peaks.tan.value).toBeGreaterThan(rest.series.tanMgN[0] * 1.5); // the addition shows (MODEL.md §9.2)
   });
 
   it('a session’s samples before the day and the continued run together make up the full series', () => {

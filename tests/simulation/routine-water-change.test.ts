@@ -5,7 +5,7 @@ import { matureWithPlaties, tank } from './scenarios';
 const HORIZON = 45;
 
 describe("a tank's routine water change", () => {
-  it('is exactly the same as writing each water change into the timeline (model.md §6.6: water changes dilute dissolved species exactly)', () => {
+  it('is exactly the same as writing each water change into the timeline (MODEL.md §7.1: water changes dilute dissolved species exactly)', () => {
     const routine = forecast({ ...matureWithPlaties(30, [], { routineWaterChange: { percent: 25, everyDays: 7 } }), horizonDays: HORIZON });
     const written = forecast({
       ...matureWithPlaties(
@@ -19,7 +19,7 @@ describe("a tank's routine water change", () => {
     }
   });
 
-  it('keeps nitrate lower than no water changes and still closes the nitrogen balance to 1e-6 (model.md §6.7)', () => {
+  it('keeps nitrate lower than no water changes and still closes the nitrogen balance to 1e-6 (MODEL.md §8.4)', () => {
     const none = forecast({ ...matureWithPlaties(30), horizonDays: HORIZON });
     const weekly = forecast({ ...matureWithPlaties(30, [], { routineWaterChange: { percent: 25, everyDays: 7 } }), horizonDays: HORIZON });
     expect(weekly.series.no3MgN.at(-1)!).toBeLessThan(0.8 * none.series.no3MgN.at(-1)!);

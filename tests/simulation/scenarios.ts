@@ -16,7 +16,7 @@ export function tank(overrides: Partial<Tank> = {}): Tank {
   };
 }
 
-/** New, unseeded tank dosed `mgN` mg N/L every day (the fishless start-up of model.md §6.1). */
+/** New, unseeded tank dosed `mgN` mg N/L every day (the fishless start-up of MODEL.md §9.2). */
 export function startUp(overrides: Partial<Tank> = {}, mgN = 1): ScenarioInput {
   return {
     tank: tank(overrides),

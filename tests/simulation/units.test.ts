@@ -23,8 +23,8 @@ import {
 } from '@/simulation/units';
 import { expectClose } from './helpers';
 
-describe('unit constants (model.md §5; IUPAC molar masses)', () => {
-  it('has the molar masses of model.md §5', () => {
+describe('unit constants (MODEL.md §4.6; IUPAC molar masses)', () => {
+  it('has the molar masses of MODEL.md §4.6', () => {
     expect(MOLAR_MASS).toMatchObject({ N: 14.007, NH3: 17.031, NH4: 18.039, NO2: 46.005, NO3: 62.004, NH4Cl: 53.489 });
   });
 
@@ -57,7 +57,7 @@ describe('unit constants (model.md §5; IUPAC molar masses)', () => {
 });
 
 describe('dosing stoichiometry (NH4Cl 53.489 g/mol, N 14.007)', () => {
-  it('NH4Cl is 26.19 % N (model.md §5)', () => {
+  it('NH4Cl is 26.19 % N (MODEL.md §4.6)', () => {
     expect((100 * NH4CL_N_SHARE).toFixed(2)).toBe('26.19');
   });
 
@@ -94,7 +94,7 @@ describe('bioload (Timmons & Ebeling; Froese 2006)', () => {
   });
 
   it('halving the fish at constant grams of food does not halve the nitrogen load', () => {
-    // model.md §4: uneaten food becomes detritus and is released as TAN in the end.
+    // MODEL.md §6.2: uneaten food becomes detritus and is released as TAN in the end.
     const p = DEFAULT_PARAMETERS;
     const feeding = { mode: 'grams' as const, gramsPerDay: 1, proteinShare: 0.45 };
     const full = feedNitrogenFlows(40, feeding, p);

@@ -21,7 +21,7 @@ describe('tank form', () => {
     if (!r.ok) throw new Error('expected ok');
     expect(r.input.volumeL).toBeCloseTo(29 * 3.785411784, 9); // NIST Handbook 44
     expect(r.input.temperatureC).toBeCloseTo(25, 12);
-    expect(r.input.tapWater!.tanMgN).toBeCloseTo(0.7765, 4); // NH4+ → N (model.md §5)
+    expect(r.input.tapWater!.tanMgN).toBeCloseTo(0.7765, 4); // NH4+ → N (MODEL.md §4.6)
   });
 
   it('puts messages on the fields: not a number, missing, out of range', () => {

@@ -162,7 +162,7 @@ describe('buildLessonInput', () => {
     const f = forecast(built.scenario);
     const no2 = f.series.no2MgN;
     // A settled tank's nitrite sits near zero before the purchase; the addition lifts it
-    // (nitrite lags ammonia after a load increase: common practice; model.md).
+    // (nitrite lags ammonia after a load increase: common practice; MODEL.md §9.2).
     expect(Math.max(...no2)).toBeGreaterThan(5 * no2[0]);
   });
 });

@@ -40,7 +40,7 @@ describe('readingsToCsv / parseReadingsCsv', () => {
   it('reads its own output back to the same values, in the row basis', () => {
     const { rows, errors } = parseReadingsCsv(readingsToCsv([reading]), 10);
     expect(errors).toEqual([]);
-    // 0.3883 mg N/L as NH4+ = 0.3883 / 0.7765 ≈ 0.5; 9.036 mg N/L as NO3− ≈ 40 (model.md §5 factors).
+    // 0.3883 mg N/L as NH4+ = 0.3883 / 0.7765 ≈ 0.5; 9.036 mg N/L as NO3− ≈ 40 (MODEL.md §4.6 factors).
     expect(rows[0].tan).toBeCloseTo(0.5, 3);
     expect(rows[0].no3).toBeCloseTo(40, 2);
     expect(rows[0]).toMatchObject({ line: 2, basis: 'ion', no2: null, ph: 7.4, khDkh: null, note: reading.note });

@@ -133,13 +133,13 @@ describe('tankScenario', () => {
     expect(() => tankScenario(communityTank({ volumeL: 0 }))).toThrow(ScenarioError);
   });
 
-  it('forecasts a mature tank without its own fish pushing ammonia over the practice limit (model.md §6)', () => {
-    // A settled tank at its present load stays near zero TAN (model.md §6: steady state).
+  it('forecasts a mature tank without its own fish pushing ammonia over the practice limit (MODEL.md §3.8)', () => {
+    // A settled tank at its present load stays near zero TAN (MODEL.md §3.8: the settled start).
     const result = forecast(tankScenario(communityTank()).scenario);
     expect(result.summary.peaks.tan.value).toBeLessThan(0.5);
   });
 
-  it('forecasts an unseeded tank with the same fish rising well above the mature one (model.md §6: new-tank spike)', () => {
+  it('forecasts an unseeded tank with the same fish rising well above the mature one (MODEL.md §9.2: new-tank spike)', () => {
     const mature = forecast(tankScenario(communityTank()).scenario).summary.peaks.tan.value;
     const fresh = forecast(tankScenario(communityTank(), { events: [] }, { start: { kind: 'new' } }).scenario).summary.peaks.tan.value;
     expect(fresh).toBeGreaterThan(mature * 3);

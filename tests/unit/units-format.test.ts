@@ -16,7 +16,7 @@ import {
 import { LITRES_PER_US_GALLON } from '@/simulation/units';
 
 describe('volumes', () => {
-  it('shows litres as they are and US gallons at 3.785411784 L each (NIST Handbook 44, model.md §5)', () => {
+  it('shows litres as they are and US gallons at 3.785411784 L each (NIST Handbook 44, MODEL.md §4.6)', () => {
     expect(formatVolume(120, 'L')).toBe('120 L');
     expect(formatVolume(7.25, 'L')).toBe('7.3 L');
     expect(formatVolume(120, 'USgal')).toBe('31.7 US gal'); // 120 / 3.785411784 = 31.70
@@ -31,7 +31,7 @@ describe('volumes', () => {
 });
 
 describe('temperatures', () => {
-  it('uses °F = °C·9/5 + 32 (model.md §5)', () => {
+  it('uses °F = °C·9/5 + 32 (MODEL.md §4.6)', () => {
     expect(formatTemperature(25, 'C')).toBe('25 °C');
     expect(formatTemperature(25, 'F')).toBe('77 °F');
     expect(formatTemperature(24.5, 'F')).toBe('76.1 °F');
@@ -48,7 +48,7 @@ describe('nitrogen', () => {
     expect(nitrogenUnit('no3MgN', 'N')).toBe('mg/L as N');
   });
 
-  it('converts to the ion with the model.md §5 factors (NH4+ 0.7765, NO2− 0.3045, NO3− 0.2259)', () => {
+  it('converts to the ion with the MODEL.md §4.6 factors (NH4+ 0.7765, NO2− 0.3045, NO3− 0.2259)', () => {
     expect(formatNitrogen(0.7765, 'tanMgN', 'ion')).toBe('1');
     expect(formatNitrogen(0.3045, 'no2MgN', 'ion')).toBe('1');
     expect(formatNitrogen(0.2259 * 40, 'no3MgN', 'ion')).toBe('40');

@@ -1,5 +1,5 @@
 /**
- * Behaviours of model.md §6 at default parameters. Sources: [practice] unless named; the
+ * Behaviours of the trade (MODEL.md §9.2) at default parameters. Sources: [practice] unless named; the
  * start-up windows are Lekang (Aquaculture Engineering) and Mnyoro et al. (2022).
  */
 import { describe, expect, it } from 'vitest';
@@ -25,15 +25,15 @@ const aoAt = (s: ScenarioInput, day: number) => {
   return f.series.zones.reduce((sum, z) => sum + z.ao[day], 0);
 };
 
-describe('§6.1 new-tank start-up (25 °C, 1 mg N/L dosed daily, inoculum 1e-4 mg N/L/d)', () => {
+describe('new-tank start-up (25 °C, 1 mg N/L dosed daily, inoculum 1e-4 mg N/L/d)', () => {
   const { tanPeak, no2Peak, settled } = startUpTimeline(startUp());
 
-  it('peaks TAN first, about day 5–14 (Lekang; model.md §6.1)', () => {
+  it('peaks TAN first, about day 5–14 (Lekang; MODEL.md §9.2)', () => {
     expect(tanPeak.day).toBeGreaterThanOrEqual(5);
     expect(tanPeak.day).toBeLessThanOrEqual(14);
   });
 
-  it('peaks nitrite later, about day 14–25 (Lekang; model.md §6.1)', () => {
+  it('peaks nitrite later, about day 14–25 (Lekang; MODEL.md §9.2)', () => {
     expect(no2Peak.day).toBeGreaterThanOrEqual(14);
     expect(no2Peak.day).toBeLessThanOrEqual(25);
     expect(no2Peak.day).toBeGreaterThan(tanPeak.day);
@@ -45,13 +45,13 @@ describe('§6.1 new-tank start-up (25 °C, 1 mg N/L dosed daily, inoculum 1e-4 m
     expect(settled!).toBeLessThanOrEqual(45);
   });
 
-  it('is shortened to days by seeding with mature media (model.md §6.1)', () => {
+  it('is shortened to days by seeding with mature media (MODEL.md §9.2)', () => {
     const seeded = startUpTimeline({ ...startUp(), start: { kind: 'new', inoculumMgNPerLPerDay: 0.5 } });
     expect(seeded.settled!).toBeLessThan(10);
   });
 });
 
-describe('§6.2 free ammonia stalls nitrite oxidation at high pH and dose (Anthonisen et al. 1976)', () => {
+describe('free ammonia stalls nitrite oxidation at high pH and dose (Anthonisen et al. 1976)', () => {
   it('clears nitrite later at pH 8.4 than at 7.4 with 3 mg N/L a day, and later than a light dose at pH 8.4', () => {
     const high = startUpTimeline(startUp({ ph: 8.4 }, 3));
     const neutral = startUpTimeline(startUp({ ph: 7.4 }, 3));
@@ -63,7 +63,7 @@ describe('§6.2 free ammonia stalls nitrite oxidation at high pH and dose (Antho
   });
 });
 
-describe('§6.3 a big addition to an established tank', () => {
+describe('a big addition to an established tank', () => {
   const tanPeakOf = (s: ScenarioInput) => forecast(s, { horizonDays: 45 }).summary.peaks.tan.value;
   const no2PeakOf = (s: ScenarioInput) => forecast(s, { horizonDays: 45 }).summary.peaks.no2.value;
 
@@ -89,7 +89,7 @@ describe('§6.3 a big addition to an established tank', () => {
   });
 });
 
-describe('§6.4 removal, starvation and restocking', () => {
+describe('removal, starvation and restocking', () => {
   // 40 platies, 30 rehomed on day 1, 30 back on day 36. Feeding follows body mass.
   const removeAndRestock = (extra: ScenarioInput['events'] = []): ScenarioInput =>
     matureWithPlaties(40, [
@@ -129,7 +129,7 @@ describe('§6.4 removal, starvation and restocking', () => {
   });
 });
 
-describe('§6.5 conditions that slow the populations, and surface that raises the ceiling', () => {
+describe('conditions that slow the populations, and surface that raises the ceiling', () => {
   const base = startUp();
   const baseAo = aoAt(base, 10);
 
@@ -170,7 +170,7 @@ describe('§6.5 conditions that slow the populations, and surface that raises th
   });
 });
 
-describe('§6.6 water changes', () => {
+describe('water changes', () => {
   it('dilute dissolved species exactly and leave attached nitrifiers alone', () => {
     const s: ScenarioInput = {
       ...matureWithPlaties(20, [{ type: 'ammonia-dose', day: 2, amount: { unit: 'mgN-per-L', value: 2 } }, { type: 'water-change', day: 3, percent: 40 }], {

@@ -6,13 +6,13 @@ import { normalDraw, seededRandom } from '../../../simulation/advice/random';
 import { calibrationResponseSchema } from '../../../simulation/advice/schemas';
 import { forecastParsed } from '../../../simulation/forecast';
 
-// An invented 100 L tank cycled with 1 mg N/L of ammonia a day (model.md §6.1 set-up).
+// An invented 100 L tank cycled with 1 mg N/L of ammonia a day (the fishless start-up of MODEL.md §9.2).
 const scenario = parseScenario({
   tank: { volumeL: 100, temperatureC: 25, ph: 7.6, zones: [{ id: 'filter', kind: 'filter', media: { type: 'sponge-coarse', volumeL: 1 } }] },
   start: { kind: 'new' },
   events: [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 1 }, repeatEveryDays: 1, repeatCount: 40 }],
 });
-const kit = { stepMgN: 0.25, relativeError: 0.1 }; // colour charts step 0.25 mg/L (model.md §7)
+const kit = { stepMgN: 0.25, relativeError: 0.1 }; // colour charts step 0.25 mg/L (MODEL.md §5.2)
 
 function synthetic(aoFactor: number, noFactor: number, growth: number, seed: number) {
   const day0 = forecastParsed(scenario, { horizonDays: 0.01, stepDays: 0.01 });

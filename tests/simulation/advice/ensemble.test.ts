@@ -4,7 +4,7 @@ import { PARAMETERS } from '../../../simulation/parameters';
 import { forecastParsed } from '../../../simulation/forecast';
 import { matureTank } from './fixtures';
 
-describe('the ensemble band (model.md §7)', () => {
+describe('the ensemble band (MODEL.md §5.2)', () => {
   const scenario = matureTank({ events: [{ type: 'add-fish', day: 0, fish: { species: 'platy', count: 20 } }] });
   const options = { horizonDays: 30, stepDays: 1 };
 

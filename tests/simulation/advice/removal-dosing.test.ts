@@ -17,7 +17,7 @@ describe('supplementaryDosing: a tank emptied on day 0 and restocked on day 28 (
     expect(Math.abs(capacity / advice.targetCapacityMgNPerDay - 1)).toBeLessThan(0.1);
   });
 
-  it('loses more capacity without the dose (model.md §6.4: populations starve back)', () => {
+  it('loses more capacity without the dose (MODEL.md §3.4: populations starve back)', () => {
     expect(advice.capacityAtRestock.withoutAdvice).toBeLessThan(0.9 * advice.targetCapacityMgNPerDay);
   });
 
@@ -29,7 +29,7 @@ describe('supplementaryDosing: a tank emptied on day 0 and restocked on day 28 (
     expect(advice.dose.ammoniaSolutionMlPerDay).toBeCloseTo((advice.dose.mgNPerLPerDay * 200) / mgNPerMl, 10);
   });
 
-  it('cuts grams-per-day feeding with the fish (model.md §4) and says why', () => {
+  it('cuts grams-per-day feeding with the fish (MODEL.md §6.2) and says why', () => {
     expect(advice.feeding.cutShare).toBe(1);
     expect(advice.explanation.join(' ')).toMatch(/still rots into ammonia/);
   });
