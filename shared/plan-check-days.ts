@@ -12,6 +12,18 @@ export interface PlanCheckDay {
   /** YYYY-MM-DD, or '' when the start date is unreadable */
   date: string;
   reasons: string[];
+  /**
+   * What the plan's forecast says the test should show that day (mg N/L), when a forecast is
+   * given: the one source of "what to expect", so no reason states an expectation of its own.
+   */
+  expected?: { tanMgN: number; no2MgN: number };
+}
+
+/** The forecast's daily series, as the plan's forecast view carries them. */
+export interface CheckDayForecast {
+  days: readonly number[];
+  tanMgN: readonly number[];
+  no2MgN: readonly number[];
 }
 
 /** Days after a new load to test (common practice: daily at first, then spaced out to two weeks). */
@@ -41,11 +53,11 @@ function checksFor(e: ScenarioEvent): [number, string][] {
     case 'ammonia-dose': {
       const every = e.repeatEveryDays ?? 0;
       const times = every > 0 ? (e.repeatCount ?? 1) : 1;
-      const out: [number, string][] = [[e.day + 1, 'a day after the first ammonia dose: it should be falling']];
+      const out: [number, string][] = [[e.day + 1, 'a day after the first ammonia dose, to see how fast it clears']];
       // Once a week while doses repeat, just before the dose.
       for (let t = 7; every > 0 && t <= every * (times - 1); t += 7) {
         const doseDay = e.day + Math.ceil(t / every) * every;
-        out.push([doseDay, 'before a repeat dose: ammonia and nitrite should read near zero']);
+        out.push([doseDay, 'before a repeat dose, to see the filter keeping up']);
       }
       return out;
     }
@@ -72,8 +84,32 @@ export function addDays(startDate: string, days: number): string {
   return new Date(t + Math.round(days) * 86_400_000).toISOString().slice(0, 10);
 }
 
+/**
+ * The forecast's value for a test on `day`: the sample that day, or — when something happens
+ * that day (a dose, a water change, fish coming or going) — the last sample before it, since
+ * the test is taken first.
+ */
+function valueOn(f: CheckDayForecast, series: readonly number[], day: number, eventDays: ReadonlySet<number>): number | undefined {
+  const before = eventDays.has(day);
+  let k = -1;
+  for (let i = 0; i < f.days.length && (before ? f.days[i] < day - 1e-9 : f.days[i] <= day + 1e-9); i++) k = i;
+  return k < 0 ? undefined : series[k];
+}
+
+/** Whole days on which an event acts (each repeat of a dose included). */
+function eventDaysOf(events: readonly ScenarioEvent[]): Set<number> {
+  const out = new Set<number>();
+  for (const e of events) {
+    out.add(Math.round(e.day));
+    if (e.type === 'ammonia-dose' && e.repeatEveryDays !== undefined) {
+      for (let i = 1; i < (e.repeatCount ?? 1) && i < 1000; i++) out.add(Math.round(e.day + i * e.repeatEveryDays));
+    }
+  }
+  return out;
+}
+
 /** Check days in order, one per whole day, within the plan's forecast horizon. */
-export function planCheckDays(events: readonly ScenarioEvent[], startDate: string): PlanCheckDay[] {
+export function planCheckDays(events: readonly ScenarioEvent[], startDate: string, forecast?: CheckDayForecast): PlanCheckDay[] {
   const horizon = defaultHorizonDays(events);
   const byDay = new Map<number, string[]>();
   const add = (day: number, reason: string) => {
@@ -85,5 +121,13 @@ export function planCheckDays(events: readonly ScenarioEvent[], startDate: strin
   };
   if (events.length > 0) add(0, 'before the plan starts, to know the starting water');
   for (const e of events) for (const [day, reason] of checksFor(e)) add(day, reason);
-  return [...byDay.entries()].sort((a, b) => a[0] - b[0]).map(([day, reasons]) => ({ day, date: addDays(startDate, day), reasons }));
+  const eventDays = eventDaysOf(events);
+  return [...byDay.entries()]
+    .sort((a, b) => a[0] - b[0])
+    .map(([day, reasons]) => {
+      const tan = forecast ? valueOn(forecast, forecast.tanMgN, day, eventDays) : undefined;
+      const no2 = forecast ? valueOn(forecast, forecast.no2MgN, day, eventDays) : undefined;
+      const expected = tan !== undefined && no2 !== undefined ? { tanMgN: tan, no2MgN: no2 } : undefined;
+      return { day, date: addDays(startDate, day), reasons, ...(expected ? { expected } : {}) };
+    });
 }

@@ -13,7 +13,7 @@ import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
 import { applySchedule, useDraftStore } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
-import { basisWords } from '@/lib/units-format';
+import { basisWords, formatNitrogen } from '@/lib/units-format';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { ShareLinkPanel } from '@/components/share/share-link-panel';
@@ -96,7 +96,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   // The saved plan's server forecast (with its band) until the draft changes; then the live one.
   const shownFromServer = !dirty && server.data !== undefined;
   const view = shownFromServer ? server.data!.forecast : live.view;
-  const checkDays = useMemo(() => planCheckDays(events, saved.startDate), [events, saved.startDate]);
+  const checkDays = useMemo(() => planCheckDays(events, saved.startDate, view ?? undefined), [events, saved.startDate, view]);
 
   const target = sliderTarget(events, selected);
   const targetEvent = target >= 0 ? (events[target] as Extract<ScenarioEvent, { type: 'add-fish' }>) : null;
@@ -173,7 +173,12 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         <Heading level={2}>When to test</Heading>
         {checkDays.length === 0 ? <AppText tone="textMuted">Add an event to see the test days.</AppText> : null}
         {checkDays.slice(0, 12).map((d) => (
-          <AppText key={d.day}>{`Day ${d.day} (${d.date}): ${d.reasons.join('; ')}`}</AppText>
+          <AppText key={d.day} testID={`check-day-${d.day}`}>
+            {`Day ${d.day} (${d.date}): ${d.reasons.join('; ')}`}
+            {d.expected
+              ? `. The forecast says about ${formatNitrogen(d.expected.tanMgN, 'tanMgN', prefs.nitrogenBasis)} ammonia and ${formatNitrogen(d.expected.no2MgN, 'no2MgN', prefs.nitrogenBasis)} nitrite (${basisWords(prefs.nitrogenBasis)}).`
+              : ''}
+          </AppText>
         ))}
         {checkDays.length > 12 ? <AppText tone="textMuted">{`…and ${checkDays.length - 12} more on the printable plan.`}</AppText> : null}
       </Card>
