@@ -2,7 +2,7 @@
  * Steady state of a settled tank at a constant load (MODEL.md §3.8): every zone's populations
  * have grown or shrunk until growth, loss, exchange with the other zones and arrival from
  * outside balance, and oxidation matches the supply. Solved per population in turn, each by
- * bisection on the bulk concentration (the oxidation each level sustains rises with it).
+ * a bracketed root on the bulk concentration (the oxidation each level sustains rises with it).
  *
  * At a given bulk concentration each zone z has an achievable growth g_z = μ·s_z, a loss b_z
  * (its starvation clock at equilibrium) and a ceiling Cmax_z, and receives
@@ -41,11 +41,34 @@ export class LoadTooHighError extends Error {
   }
 }
 
-function bisect(fn: (x: number) => number, lo: number, hi: number, relTol: number): number {
+/**
+ * Root of fn on [lo, hi] (fn(lo) ≤ 0 < fn(hi)) by the Illinois variant of regula falsi, which
+ * keeps the bracket of bisection and converges superlinearly (Dowell & Jarratt 1971): a few
+ * tens of evaluations instead of bisection's ~45 per root, which matters because the settled
+ * start nests two of them.
+ */
+function bracketedRoot(fn: (x: number) => number, lo: number, hi: number, relTol: number): number {
+  let flo = fn(lo);
+  let fhi = fn(hi);
+  if (flo > 0) return lo;
+  if (!(fhi > 0)) return hi;
+  let side = 0;
   for (let i = 0; i < 200 && hi - lo > relTol * hi; i++) {
-    const mid = 0.5 * (lo + hi);
-    if (fn(mid) > 0) hi = mid;
-    else lo = mid;
+    let x = (lo * fhi - hi * flo) / (fhi - flo);
+    // Inside the bracket (and not NaN), else bisect.
+    if (!(x > lo && x < hi)) x = 0.5 * (lo + hi);
+    const fx = fn(x);
+    if (fx > 0) {
+      hi = x;
+      fhi = fx;
+      if (side === 1) flo *= 0.5;
+      side = 1;
+    } else {
+      lo = x;
+      flo = fx;
+      if (side === -1) fhi *= 0.5;
+      side = -1;
+    }
   }
   return 0.5 * (lo + hi);
 }
@@ -83,7 +106,7 @@ function populationCapacities(g: number[], b: number[], ceiling: number[], share
   for (let z = 0; z < nz; z++) hi += ceiling[z];
   hi = Math.max(hi, 1e-12);
   while (sumAt(hi, false) > hi && hi < 1e15) hi *= 4;
-  const total = sumAt(0, false) <= 0 ? 0 : bisect((t) => t - sumAt(t, false), 0, hi, 1e-13);
+  const total = sumAt(0, false) <= 0 ? 0 : bracketedRoot((t) => t - sumAt(t, false), 0, hi, 1e-13);
   sumAt(total, true);
   return total;
 }
@@ -103,6 +126,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
   const bN = zeros(nz);
   const capAo = zeros(nz);
   const capNo = zeros(nz);
+  const scratch = zeros(nz);
   const V = model.volumeL;
   const acid = model.acidTarget(kh);
   const share = model.settleShare;
@@ -114,7 +138,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
       gA[z] = c.growthAo * sA[z];
       bA[z] = model.settledLoss(gA[z], c.decayAo);
     }
-    const out = store ? capAo : zeros(nz);
+    const out = store ? capAo : scratch;
     populationCapacities(gA, bA, model.ceilingAo, share, c.exchange, c.immigration, out);
     let sum = 0;
     for (let z = 0; z < nz; z++) sum += out[z] * c.activityAo * sA[z];
@@ -127,7 +151,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
     let hi = 1;
     while (total(hi) <= 0 && hi < 1e4) hi *= 4;
     if (total(hi) <= 0) throw new LoadTooHighError(load, aoOxidation(1e6, false));
-    tan = bisect(total, 0, hi, 1e-13);
+    tan = bracketedRoot(total, 0, hi, 1e-13);
   }
   const oxidation = aoOxidation(tan, true);
 
@@ -137,7 +161,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
       gN[z] = c.growthNo * sN[z];
       bN[z] = model.settledLoss(gN[z], c.decayNo);
     }
-    const out = store ? capNo : zeros(nz);
+    const out = store ? capNo : scratch;
     populationCapacities(gN, bN, model.ceilingNo, share, c.exchange, c.immigration, out);
     let sum = 0;
     for (let z = 0; z < nz; z++) sum += out[z] * c.activityNo * sN[z];
@@ -149,7 +173,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
     let hi = 1;
     while (gap(hi) <= 0 && hi < 1e4) hi *= 4;
     if (gap(hi) <= 0) throw new LoadTooHighError(oxidation, noOxidation(1e6, false));
-    no2 = bisect(gap, 0, hi, 1e-13);
+    no2 = bracketedRoot(gap, 0, hi, 1e-13);
   }
   noOxidation(no2, true);
 
