@@ -44,6 +44,13 @@ export function doseMgNPerL(amount: DoseAmount, volumeL: number): number {
   }
 }
 
+/** Days from a dose's start to its last part (split) or the end of its flow (continuous); 0 at once. */
+export function doseSpanDays(event: Pick<AmmoniaDoseEvent, 'delivery' | 'timesPerDay'>): number {
+  if (event.delivery === 'continuous') return 1;
+  const n = event.timesPerDay ?? 1;
+  return (n - 1) / n;
+}
+
 /** One pulse of a dose (`end` absent) or one stretch of its steady flow, in days. */
 export interface DosePart {
   start: number;
