@@ -168,7 +168,7 @@ export const ammoniaDoseSchema = z
     delivery: z.enum(DOSE_DELIVERIES, { error: 'delivery is "pulses" or "continuous".' }).optional(),
     /** Pulses: each dose split into this many equal parts, 24/n h apart (default 1: all at once). */
     timesPerDay: z
-      .number()
+      .number({ error: `timesPerDay must be a whole number from 1 to ${MAX_DOSES_PER_DAY}.` })
       .int('timesPerDay must be a whole number.')
       .min(1, 'timesPerDay must be at least 1.')
       .max(MAX_DOSES_PER_DAY, `timesPerDay is at most ${MAX_DOSES_PER_DAY} (3 h apart); for more, dose continuously.`)
