@@ -132,8 +132,9 @@ export function chooseDelivery(search: DeliverySearch): DeliveryPick {
 
 /**
  * The largest daily dose, up to `dose`, whose bounding members stay under every limit while
- * dosing (bisection to 1 %); 0 when even a trace crosses. For when no delivery keeps the full
- * dose under the limits with fish in the tank: a smaller biofilter at the restock is the lesser harm.
+ * dosing (bisection to 1 %, or 0.005 mg N/L); 0 when the plan crosses even without a dose. For
+ * when no delivery keeps the full dose under the limits with fish in the tank: a smaller
+ * biofilter at the restock is the lesser harm.
  */
 export function largestDoseUnder(
   dose: number,
@@ -142,11 +143,10 @@ export function largestDoseUnder(
   search: Pick<DeliverySearch, 'limits' | 'options' | 'untilDay'>,
   count: { forecasts: number },
 ): number {
+  if (!boundedUnder(scenarioWith(0), bounding, search, count)) return 0;
   let lo = 0;
   let hi = dose;
-  if (!boundedUnder(scenarioWith(0.01 * dose), bounding, search, count)) return 0;
-  lo = 0.01 * dose;
-  while (hi - lo > 0.01 * hi) {
+  while (hi - lo > Math.max(0.01 * hi, 0.005)) {
     const mid = 0.5 * (lo + hi);
     if (boundedUnder(scenarioWith(mid), bounding, search, count)) lo = mid;
     else hi = mid;

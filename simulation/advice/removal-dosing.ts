@@ -36,8 +36,7 @@ import {
   type DeliveryChoice,
 } from './dose-delivery';
 import { limitByKey } from './explain';
-import { runConditionedEnsemble } from './ensemble';
-import { bandExplanation } from './ensemble';
+import { bandExplanation, bandOf, forecastMember, runConditionedEnsemble, type EnsembleResult } from './ensemble';
 import { describeOutcome } from './explain';
 import { settledTankAccepts } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
@@ -160,37 +159,56 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   const withPlan = (d: number, choice: DeliveryChoice) => withEvents(base, [...feedEvents, ...doseEvents(d, choice)]);
   const capOpts = { ...ctx.options, horizonDays: restockDay, stepDays: 1 };
   const capWith = (d: number, choice: DeliveryChoice) => capacityAt(forecastParsed(withPlan(d, choice), capOpts), restockDay);
+  const onceADayCap = (d: number) => capWith(d, DELIVERY_CANDIDATES[0]);
 
-  // Bisection on the dose (mg N/L/day): capacity at the restock rises with it.
-  const doseFor = (choice: DeliveryChoice): number => {
+  // Bisection on the dose (mg N/L/day): capacity at the restock rises with it — up to a point:
+  // far above the load, free ammonia inhibits the nitrifiers and capacity falls again. So the
+  // bracket grows from a small dose only while capacity still rises; past that peak the best
+  // dose found is the answer (the target cannot be reached by dosing).
+  const doseFor = (): number => {
     let lo = 0;
-    if (capWith(0, choice) >= target) return 0;
-    let hi = Math.max(0.05, (2 * target) / scenario.tank.volumeL);
-    while (capWith(hi, choice) < target && hi < 50) hi *= 2;
+    if (onceADayCap(0) >= target) return 0;
+    let hi = 0.05;
+    let capHi = onceADayCap(hi);
+    while (capHi < target && hi < 50) {
+      const next = Math.min(50, 2 * hi);
+      const capNext = onceADayCap(next);
+      if (capNext <= capHi) return hi;
+      lo = hi;
+      hi = next;
+      capHi = capNext;
+    }
+    if (capHi < target) return hi;
     for (let i = 0; i < 30 && hi - lo > 1e-4 * hi; i++) {
       const mid = 0.5 * (lo + hi);
-      if (capWith(mid, choice) < target) lo = mid;
+      if (onceADayCap(mid) < target) lo = mid;
       else hi = mid;
     }
     return Math.min(hi, 50); // the engine refuses single doses over 50 mg N/L
   };
   const planWith = (d: number, choice: DeliveryChoice) => withEvents(scenario, [...feedEvents, ...doseEvents(d, choice), ...removalEvents, ...restockEvents]);
+  // The plausible tanks are drawn once, judged on the tank as it is (the plan without the
+  // advice: no dose yet on day 0's sample), and every plan runs on those same members.
   const accept = settledTankAccepts(scenario, ctx.limits, 1);
-  const ensembleOf = (s: Scenario) => runConditionedEnsemble(s, ctx.ensemble, ctx.options, accept);
+  const ensembleWithout = runConditionedEnsemble(base, ctx.ensemble, ctx.options, accept);
+  const ensembleOf = (s: Scenario): EnsembleResult => {
+    const forecasts = ensembleWithout.members.map((m) => forecastMember(s, m, ctx.options));
+    return { members: ensembleWithout.members, forecasts, failed: [], band: bandOf(forecasts) };
+  };
 
   // Once a day first; with fish staying, gentler deliveries until the dosing period stays under the limits.
   let choice: DeliveryChoice = DELIVERY_CANDIDATES[0];
-  let dose = doseFor(choice);
+  let dose = doseFor();
   let withScenario = planWith(dose, choice);
   let ensembleWith = ensembleOf(withScenario);
-  const onceADay = { dose, ensemble: ensembleWith };
+  const onceADay = ensembleWith;
   const fishStay = massAfter > 0;
   let underLimits = edgeRatioUntil(ensembleWith.forecasts, ctx.limits, restockDay) <= 1;
   if (fishStay && dose > 0 && !underLimits) {
     let from = 1;
     while (from < DELIVERY_CANDIDATES.length) {
       const pick = chooseDelivery({
-        onceADay: onceADay.ensemble,
+        onceADay,
         scenarioFor: (c) => planWith(dose, c),
         limits: ctx.limits,
         options: ctx.options,
@@ -199,8 +217,9 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
         boundingSize: ctx.boundingSize,
         from,
       });
+      // The day's dose stays the once-a-day one: spreading it moves the capacity at the
+      // restock by well under 1 % (the same nitrogen feeds the same nitrifiers).
       choice = pick.choice;
-      dose = doseFor(choice);
       withScenario = planWith(dose, choice);
       ensembleWith = ensembleOf(withScenario);
       underLimits = edgeRatioUntil(ensembleWith.forecasts, ctx.limits, restockDay) <= 1;
@@ -215,7 +234,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   let fullDose: number | null = null;
   if (fishStay && dose > 0 && !underLimits) {
     const search = { limits: ctx.limits, options: ctx.options, untilDay: restockDay };
-    const bounding = boundingMembers(onceADay.ensemble, ctx.limits, restockDay, ctx.boundingSize);
+    const bounding = boundingMembers(onceADay, ctx.limits, restockDay, ctx.boundingSize);
     fullDose = dose;
     let lowered = largestDoseUnder(dose, (d) => planWith(d, choice), bounding, search, { forecasts: 0 });
     for (let tries = 0; ; tries++) {
@@ -228,7 +247,6 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
     dose = lowered;
   }
   const events = [...removalEvents, ...feedEvents, ...doseEvents(dose, choice), ...restockEvents];
-  const ensembleWithout = runConditionedEnsemble(base, ctx.ensemble, ctx.options, accept);
   const withAdvice = planOutcome(ensembleWith.forecasts, ctx.limits, forecastParsed(withScenario, ctx.options));
   const withoutAdvice = planOutcome(ensembleWithout.forecasts, ctx.limits, forecastParsed(base, ctx.options));
 
@@ -240,7 +258,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
     solution: request.solution ?? null,
   };
   const parts = partsPerDay(choice);
-  const onceVerdict = verdictOfEdge(onceADay.ensemble.forecasts, ctx.limits, restockDay);
+  const onceVerdict = verdictOfEdge(onceADay.forecasts, ctx.limits, restockDay);
   const delivery: DoseDelivery = {
     method: choice.method,
     timesPerDay: parts,
