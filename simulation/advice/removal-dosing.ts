@@ -283,7 +283,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   if (dose > 0) {
     const sol = doseAmounts.ammoniaSolutionMlPerDay !== null && request.solution ? ` or ${formatValue(doseAmounts.ammoniaSolutionMlPerDay)} mL of your ${request.solution.percentNH3} % ammonia solution` : '';
     explanation.push(
-      `Dose ${formatValue(dose)} mg N/L every day from day ${removalDay} to day ${restockDay - 1}: ${formatValue(doseAmounts.ammoniumChlorideGPerDay)} g of ammonium chloride${sol} a day in your ${formatValue(V)} L. This replaces the ammonia the departed fish supplied.`,
+      `Dose ${formatValue(dose)} mg N/L every day from day ${removalDay} to day ${restockDay - 1}: ${formatValue(doseAmounts.ammoniumChlorideGPerDay)} g of ammonium chloride${sol} a day in your ${formatValue(V)} L. This replaces ${fullDose === null ? '' : 'part of '}the ammonia the departed fish supplied.`,
     );
     explanation.push(delivery.reason);
   } else {
