@@ -35,9 +35,8 @@ import {
   verdictUntil,
   type DeliveryChoice,
 } from './dose-delivery';
-import { limitByKey } from './explain';
 import { bandExplanation, bandOf, forecastMember, runConditionedEnsemble, type EnsembleResult } from './ensemble';
-import { describeOutcome } from './explain';
+import { describeOutcome, limitByKey } from './explain';
 import { settledTankAccepts } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { withEvents } from './scenario-edit';
