@@ -36,7 +36,9 @@ simulation/scenario.ts for every field, default and limit):
             · water-change {day, percent} · temperature {day, temperatureC}
             · ammonia-dose {day, amount:{unit:"mgN-per-L", value} | {unit:"ammonium-chloride-g", grams}
                             | {unit:"ammonia-solution-mL", mL, percentNH3, densityGPerMl?},
-                            repeatEveryDays?, repeatCount?}
+                            repeatEveryDays?, repeatCount?,
+                            timesPerDay? (1–8: each dose in equal parts 24/n h apart),
+                            delivery? ("pulses" | "continuous": spread evenly over the dose's day)}
             · filter-clean {day, zoneId, action:"rinse"|"replace", shareLost}
             · medication {day, durationDays, oxidationMultiplier}
             · aeration-loss {day, durationDays, oxygenShare}

@@ -53,7 +53,9 @@ function checksFor(e: ScenarioEvent): [number, string][] {
     case 'ammonia-dose': {
       const every = e.repeatEveryDays ?? 0;
       const times = every > 0 ? (e.repeatCount ?? 1) : 1;
-      const out: [number, string][] = [[e.day + 1, 'a day after the first ammonia dose, to see how fast it clears']];
+      const out: [number, string][] = [
+        [e.day + 1, e.delivery === 'continuous' ? 'a day into the continuous ammonia dose, to see the filter keeping up' : 'a day after the first ammonia dose, to see how fast it clears'],
+      ];
       // Once a week while doses repeat, just before the dose.
       for (let t = 7; every > 0 && t <= every * (times - 1); t += 7) {
         const doseDay = e.day + Math.ceil(t / every) * every;

@@ -4,6 +4,7 @@
  * (plan forecasts, advice) and the app (live forecast while a draft changes).
  */
 import { zonesFromDescription } from '../simulation/presets';
+import { doseSpanDays } from '../simulation/timeline';
 import { ScenarioError, type AerationLevel, type FishGroup, type ScenarioEvent, type ScenarioInput, type Start, type Zone } from '../simulation/scenario';
 import { TANK_DEFAULTS, type LivestockItem, type RoutineWaterChange, type TankDetail, type TankSetup } from './schemas/tank';
 
@@ -40,10 +41,11 @@ export const DAYS_AFTER_LAST_EVENT = 21;
 export const MIN_HORIZON_DAYS = 30;
 export const MAX_HORIZON_DAYS = 365;
 
-/** Day of an event's last action (repeating doses end later than they start). */
+/** Day of an event's last action (repeating, split and continuous doses end later than they start). */
 export function lastActionDay(event: ScenarioEvent): number {
-  if (event.type === 'ammonia-dose' && event.repeatEveryDays !== undefined && (event.repeatCount ?? 1) > 1) {
-    return event.day + event.repeatEveryDays * ((event.repeatCount ?? 1) - 1);
+  if (event.type === 'ammonia-dose') {
+    const repeats = event.repeatEveryDays !== undefined ? (event.repeatCount ?? 1) : 1;
+    return event.day + (event.repeatEveryDays ?? 0) * (repeats - 1) + doseSpanDays(event);
   }
   if (event.type === 'medication' || event.type === 'aeration-loss') return event.day + event.durationDays;
   return event.day;

@@ -33,6 +33,13 @@ const factor = z.number().gt(0, 'Must be above 0.').max(1, 'At most 1.');
 
 /** Shortest dose repeat, days: 6 h (keepers dose at most a few times a day) [practice]. */
 export const MIN_DOSE_REPEAT_DAYS = 0.25;
+/**
+ * Most parts a split dose may have: 8 a day, 3 h apart, as a dosing pump's timer gives
+ * [practice]; closer than that is a continuous dose (`delivery: 'continuous'`).
+ */
+export const MAX_DOSES_PER_DAY = 8;
+/** How a dose enters the tank: in pulses (all at once, or split through the day) or as a steady flow. */
+export const DOSE_DELIVERIES = ['pulses', 'continuous'] as const;
 /** Shortest medication, aeration loss or forecast, days: an hour; less is below what a test or the model resolves. */
 export const MIN_DURATION_DAYS = 1 / 24;
 
@@ -141,6 +148,47 @@ export const doseAmountSchema = z.discriminatedUnion('unit', [
   }),
 ]);
 
+/**
+ * An ammonia dose. `amount` is one dose; it repeats every `repeatEveryDays` (`repeatCount` times
+ * in all, or to the horizon). Each dose goes in at once, or spread over the 24 h from its start:
+ * `timesPerDay` equal parts 24/n h apart, or `delivery: 'continuous'` (a dosing pump or drip)
+ * at a steady amount/day. Absent fields: one pulse, as before they existed.
+ */
+export const ammoniaDoseSchema = z
+  .object({
+    type: z.literal('ammonia-dose'),
+    day,
+    amount: doseAmountSchema,
+    /** Repeat the same dose every N days… */
+    // Keepers dose at most a few times a day [practice]; 6 h apart is the shortest repeat.
+    repeatEveryDays: z.number().min(MIN_DOSE_REPEAT_DAYS, 'Repeat at most four times a day (0.25 days apart).').max(365).optional(),
+    /** …this many times in all (including the first). */
+    repeatCount: z.number().int('repeatCount must be a whole number.').min(1, 'repeatCount must be at least 1.').max(1000, 'repeatCount is at most 1000.').optional(),
+    /** Pulses (default) or a steady flow over each dose's day. */
+    delivery: z.enum(DOSE_DELIVERIES, { error: 'delivery is "pulses" or "continuous".' }).optional(),
+    /** Pulses: each dose split into this many equal parts, 24/n h apart (default 1: all at once). */
+    timesPerDay: z
+      .number({ error: `timesPerDay must be a whole number from 1 to ${MAX_DOSES_PER_DAY}.` })
+      .int('timesPerDay must be a whole number.')
+      .min(1, 'timesPerDay must be at least 1.')
+      .max(MAX_DOSES_PER_DAY, `timesPerDay is at most ${MAX_DOSES_PER_DAY} (3 h apart); for more, dose continuously.`)
+      .optional(),
+  })
+  .superRefine((e, ctx) => {
+    const continuous = e.delivery === 'continuous';
+    if (continuous && e.timesPerDay !== undefined && e.timesPerDay > 1) {
+      ctx.addIssue({ code: 'custom', message: 'A continuous dose is not split: leave timesPerDay out (or 1), or deliver in pulses.', path: ['timesPerDay'] });
+    }
+    // A spread dose takes its day: the next one may start when it has ended, not before.
+    if ((continuous || (e.timesPerDay ?? 1) > 1) && e.repeatEveryDays !== undefined && e.repeatEveryDays < 1) {
+      ctx.addIssue({
+        code: 'custom',
+        message: `A ${continuous ? 'continuous' : 'split'} dose is spread over a day, so repeatEveryDays must be at least 1.`,
+        path: ['repeatEveryDays'],
+      });
+    }
+  });
+
 const removal = {
   day,
   species: z.string().min(1).optional(),
@@ -160,16 +208,7 @@ export const eventSchema = z.discriminatedUnion('type', [
   }),
   z.object({ type: z.literal('feeding'), day, feeding: feedingSchema }),
   z.object({ type: z.literal('water-change'), day, percent: z.number().gt(0, 'Percent must be above 0.').max(100, 'At most 100 %.') }),
-  z.object({
-    type: z.literal('ammonia-dose'),
-    day,
-    amount: doseAmountSchema,
-    /** Repeat the same dose every N days… */
-    // Keepers dose at most a few times a day [practice]; 6 h apart is the shortest repeat.
-    repeatEveryDays: z.number().min(MIN_DOSE_REPEAT_DAYS, 'Repeat at most four times a day (0.25 days apart).').max(365).optional(),
-    /** …this many times in all (including the first). */
-    repeatCount: z.number().int().min(1).max(1000).optional(),
-  }),
+  ammoniaDoseSchema,
   z.object({
     type: z.literal('filter-clean'),
     day,
@@ -264,6 +303,8 @@ export type FishGroup = z.output<typeof fishGroupSchema>;
 export type FeedingInput = z.output<typeof feedingSchema>;
 export type DoseAmount = z.output<typeof doseAmountSchema>;
 export type ScenarioEvent = z.output<typeof eventSchema>;
+export type AmmoniaDoseEvent = z.output<typeof ammoniaDoseSchema>;
+export type DoseDelivery = (typeof DOSE_DELIVERIES)[number];
 export type Start = z.output<typeof startSchema>;
 export type Scenario = z.output<typeof scenarioSchema>;
 /** What a caller may write (defaults not yet filled in). */

@@ -1,10 +1,11 @@
 /**
  * Turns a scenario's events into ordered breakpoints (the ends of integration segments),
- * expanding repeated doses and adding the ends of medication and aeration loss. Checks what
+ * expanding repeated and split doses and adding the ends of medication, aeration loss and
+ * continuous doses. Checks what
  * the schema cannot: known species, removals that do not exceed the fish present, events
  * inside the horizon. Errors are ScenarioErrors naming the field.
  */
-import { ScenarioError, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
+import { ScenarioError, type AmmoniaDoseEvent, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
 import { fishMassG } from './bioload';
 import { findSpecies } from './catalogue';
 import { ammoniaSolutionToMgNPerL, ammoniumChlorideToMgNPerL } from './dosing';
@@ -15,7 +16,9 @@ export type TimelineAction =
   /** One of the tank's routine water changes (scenario.tank.routineWaterChange); index −1. */
   | { kind: 'routine'; index: -1; event: Extract<ScenarioEvent, { type: 'water-change' }> }
   | { kind: 'end-medication'; index: number }
-  | { kind: 'end-aeration-loss'; index: number };
+  | { kind: 'end-aeration-loss'; index: number }
+  /** The end of a continuous dose's flow (it started with the dose's own 'event' action). */
+  | { kind: 'end-dose-flow'; index: number };
 
 export interface Breakpoint {
   time: number;
@@ -39,6 +42,52 @@ export function doseMgNPerL(amount: DoseAmount, volumeL: number): number {
     case 'ammonia-solution-mL':
       return ammoniaSolutionToMgNPerL(amount.mL, { percentNH3: amount.percentNH3, densityGPerMl: amount.densityGPerMl }, volumeL);
   }
+}
+
+/** Days from a dose's start to its last part (split) or the end of its flow (continuous); 0 at once. */
+export function doseSpanDays(event: Pick<AmmoniaDoseEvent, 'delivery' | 'timesPerDay'>): number {
+  if (event.delivery === 'continuous') return 1;
+  const n = event.timesPerDay ?? 1;
+  return (n - 1) / n;
+}
+
+/** One pulse of a dose (`end` absent) or one stretch of its steady flow, in days. */
+export interface DosePart {
+  start: number;
+  end?: number;
+}
+
+/**
+ * The pulses or flow stretches of a dose within the horizon (repeats past it are dropped):
+ * per repeat `timesPerDay` pulses 1/n day apart, or a flow over the repeat's day. Daily flows
+ * touch end to start, so they are one stretch (no breakpoint between days).
+ */
+export function doseParts(event: AmmoniaDoseEvent, horizonDays: number): DosePart[] {
+  const every = event.repeatEveryDays;
+  const times = every === undefined ? 1 : (event.repeatCount ?? Math.floor((horizonDays - event.day) / every + 1e-9) + 1);
+  const parts: DosePart[] = [];
+  const within = (t: number) => t <= horizonDays + 1e-9;
+  if (event.delivery === 'continuous') {
+    if (every !== undefined && Math.abs(every - 1) < 1e-9) {
+      if (within(event.day)) parts.push({ start: event.day, end: event.day + times });
+      return parts;
+    }
+    for (let r = 0; r < times; r++) {
+      const t = event.day + r * (every ?? 0);
+      if (!within(t)) break;
+      parts.push({ start: t, end: t + 1 });
+    }
+    return parts;
+  }
+  const n = event.timesPerDay ?? 1;
+  for (let r = 0; r < times; r++) {
+    for (let j = 0; j < n; j++) {
+      const t = event.day + r * (every ?? 0) + j / n;
+      if (!within(t)) return parts;
+      parts.push({ start: t });
+    }
+  }
+  return parts;
 }
 
 interface Group {
@@ -84,16 +133,13 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
       throw new ScenarioError({ [`events.${index}.day`]: `Day ${event.day} is after the forecast horizon (${horizonDays}).` });
     }
     if (event.type === 'ammonia-dose') {
-      const every = event.repeatEveryDays;
-      const times = every === undefined ? 1 : (event.repeatCount ?? Math.floor((horizonDays - event.day) / every) + 1);
-      if (event.repeatCount !== undefined && every === undefined && event.repeatCount > 1) {
+      if (event.repeatCount !== undefined && event.repeatEveryDays === undefined && event.repeatCount > 1) {
         throw new ScenarioError({ [`events.${index}.repeatEveryDays`]: 'A repeated dose needs repeatEveryDays.' });
       }
-      // Repeats past the horizon are outside the forecast and are dropped.
-      for (let r = 0; r < times; r++) {
-        const t = event.day + r * (every ?? 0);
-        if (t > horizonDays + 1e-9) break;
-        raw.push({ time: t, order: 2 * index + 1, action: { kind: 'event', index, event } });
+      // Pulses and flow starts are the dose's own 'event' actions; events.ts gives each its share.
+      for (const part of doseParts(event, horizonDays)) {
+        raw.push({ time: part.start, order: 2 * index + 1, action: { kind: 'event', index, event } });
+        if (part.end !== undefined && part.end <= horizonDays + 1e-9) raw.push({ time: part.end, order: 0, action: { kind: 'end-dose-flow', index } });
       }
       return;
     }

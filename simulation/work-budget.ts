@@ -3,8 +3,9 @@
  * alone before any timeline is built or any step is solved, so a scenario the schema accepts
  * can never make one forecast run out of memory or pin a thread (issue 11).
  *
- * The unit is a timeline entry (one dose, water change, fish change or end of a medication,
- * before entries at the same instant merge). Measured on this engine: ~30–50 µs per entry and
+ * The unit is a timeline entry (one dose or part of a split dose, the start or end of a
+ * continuous dose, a water change, a fish change or the end of a medication, before entries
+ * at the same instant merge). Measured on this engine: ~30–50 µs per entry and
  * ~30 µs per forecast day on one core, so a forecast at the cap is well under a second and a
  * 64-member band of one stays within a few seconds.
  */
@@ -28,7 +29,7 @@ export const MAX_ENSEMBLE_WORK = 200_000;
 export interface BudgetScenario {
   tank: { routineWaterChange?: { everyDays: number } };
   events: readonly (
-    | { type: 'ammonia-dose'; day: number; repeatEveryDays?: number; repeatCount?: number }
+    | { type: 'ammonia-dose'; day: number; repeatEveryDays?: number; repeatCount?: number; timesPerDay?: number; delivery?: string }
     | { type: string; day: number }
   )[];
 }
@@ -40,15 +41,33 @@ export interface TimelineCount {
   largest: { path: (string | number)[]; entries: number };
 }
 
+type BudgetDose = Extract<BudgetScenario['events'][number], { type: 'ammonia-dose' }>;
+const isDose = (e: BudgetScenario['events'][number]): e is BudgetDose => e.type === 'ammonia-dose';
+
+/**
+ * Entries a dose adds within the horizon, as simulation/timeline.ts `doseParts` expands it (at
+ * most that many): per repeat `timesPerDay` pulses, or a flow's start and end (daily flows are
+ * one stretch: two entries in all).
+ */
+function doseEntries(e: BudgetDose, horizonDays: number): number {
+  const every = e.repeatEveryDays;
+  const fit = every !== undefined && every > 0 ? Math.floor((horizonDays - e.day) / every + 1e-9) + 1 : 1;
+  const repeats = every === undefined || e.repeatCount === undefined ? fit : Math.min(fit, e.repeatCount);
+  if (e.delivery === 'continuous') return every !== undefined && Math.abs(every - 1) < 1e-9 ? 2 : 2 * repeats;
+  return repeats * Math.max(1, e.timesPerDay ?? 1);
+}
+
 /** Entries one event adds within the horizon (repeats past it are dropped, as the timeline does). */
 function eventEntries(e: BudgetScenario['events'][number], horizonDays: number): number {
   if (e.day > horizonDays) return 0;
-  if (e.type === 'ammonia-dose' && 'repeatEveryDays' in e && e.repeatEveryDays !== undefined && e.repeatEveryDays > 0) {
-    const fit = Math.floor((horizonDays - e.day) / e.repeatEveryDays + 1e-9) + 1;
-    return e.repeatCount === undefined ? fit : Math.min(fit, e.repeatCount);
-  }
+  if (isDose(e)) return doseEntries(e, horizonDays);
   // A medication or aeration loss also ends inside the horizon (at most one more entry).
   return e.type === 'medication' || e.type === 'aeration-loss' ? 2 : 1;
+}
+
+/** The field to name when a dose adds the most entries: its split, else its repeat. */
+function dosePath(e: BudgetDose, i: number): (string | number)[] {
+  return ['events', i, (e.timesPerDay ?? 1) > 1 && e.delivery !== 'continuous' ? 'timesPerDay' : 'repeatEveryDays'];
 }
 
 /** Counts the timeline entries of a scenario over a horizon, without building them. */
@@ -58,7 +77,7 @@ export function countTimelineEntries(scenario: BudgetScenario, horizonDays: numb
   scenario.events.forEach((e, i) => {
     const n = eventEntries(e, horizonDays);
     entries += n;
-    if (n > largest.entries) largest = { path: n > 1 && e.type === 'ammonia-dose' ? ['events', i, 'repeatEveryDays'] : ['events'], entries: n };
+    if (n > largest.entries) largest = { path: n > 1 && isDose(e) ? dosePath(e, i) : ['events'], entries: n };
   });
   const routine = scenario.tank.routineWaterChange;
   if (routine && routine.everyDays > 0) {
@@ -73,7 +92,7 @@ export function countTimelineEntries(scenario: BudgetScenario, horizonDays: numb
 export function overBudgetMessage(count: TimelineCount, horizonDays: number): string {
   return (
     `This expands to ${count.entries} timeline entries over ${horizonDays} days; at most ${MAX_TIMELINE_ENTRIES} per forecast. ` +
-    'Repeat less often, give a repeat count, or shorten the plan.'
+    'Repeat less often, split doses into fewer parts (or give them continuously), give a repeat count, or shorten the plan.'
   );
 }
 

@@ -9,6 +9,7 @@ import { AppText, Heading } from '@/components/ui/text';
 import { ChoiceGroup } from '@/components/settings/choice-group';
 import { EventForm } from '@/components/plans/event-form';
 import { EventTimeline } from '@/components/plans/event-timeline';
+import { fishOnDay } from '@/shared/fish-on-day';
 import { DEFAULT_FAST_NAME, DEFAULT_STAGED_NAME, stagedFromFast, type LessonBuilderForm, type LessonFormErrors } from './lesson-builder-model';
 
 type Which = 'fast' | 'staged';
@@ -56,6 +57,7 @@ export function LessonTimelineEditor({
   const events = shown === 'fast' ? form.events : form.stagedEvents;
   const key = shown === 'fast' ? 'events' : 'stagedEvents';
   const setEvents = (next: ScenarioEvent[]) => onChange({ [key]: next }, key);
+  const startFish = form.tank.fish.reduce((n, f) => n + (parseDecimal(f.count) ?? 0), 0);
   const choose = (w: Which) => {
     setWhich(w);
     setSelected(null);
@@ -103,6 +105,7 @@ export function LessonTimelineEditor({
         dayHint={DAY_HINT}
         onSubmit={(e) => setEvents(selected !== null ? events.map((x, j) => (j === selected ? e : x)) : [...events, e])}
         onCancel={selected !== null ? () => setSelected(null) : undefined}
+        fishOnDay={(day) => fishOnDay(startFish, events, day)}
       />
       {compare ? (
         <View style={{ gap: space.sm }} testID="lesson-split">

@@ -139,6 +139,25 @@ function AdditionAdvice({ tank, planId, events, onApplySchedule }: AdvicePanelPr
   );
 }
 
+type RemovalAnswer = NonNullable<ReturnType<typeof useRemovalAdvice>['data']>;
+
+function removalHeading(data: RemovalAnswer): string {
+  if (data.dose.mgNPerLPerDay === 0) return 'No dosing needed';
+  const d = data.delivery;
+  if (d.method === 'split') return `Dose ammonia ${d.timesPerDay} times a day until the restock`;
+  if (d.method === 'continuous') return 'Dose ammonia continuously until the restock';
+  return 'Dose ammonia daily until the restock';
+}
+
+/** How the day's dose goes in, with each part's amount. */
+function deliveryLine(data: RemovalAnswer): string {
+  const d = data.delivery;
+  if (d.method === 'continuous') return 'Spread evenly over each day with a dosing pump or a drip.';
+  if (d.method === 'once-a-day' || !d.perDose) return 'All at once, once a day.';
+  const ml = d.perDose.ammoniaSolutionMl !== null ? ` or ${plainNumber(d.perDose.ammoniaSolutionMl)} mL` : '';
+  return `In ${d.timesPerDay} equal doses, ${plainNumber(24 / (d.timesPerDay ?? 1))} hours apart: ${plainNumber(d.perDose.mgNPerL)} mg N/L each (${plainNumber(d.perDose.ammoniumChlorideG)} g ammonium chloride${ml}).`;
+}
+
 function RemovalAdvice({ tank, planId }: AdvicePanelProps) {
   const { space } = useTheme();
   const advice = useRemovalAdvice(tank.id);
@@ -183,12 +202,13 @@ function RemovalAdvice({ tank, planId }: AdvicePanelProps) {
       {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} /> : null}
       {data ? (
         <View testID="advice-removal-result" style={{ gap: space.sm }}>
-          <Heading level={3}>{data.dose.mgNPerLPerDay > 0 ? 'Dose ammonia daily until the restock' : 'No dosing needed'}</Heading>
+          <Heading level={3}>{removalHeading(data)}</Heading>
           {data.dose.mgNPerLPerDay > 0 ? (
             <View testID="removal-dose">
               <AppText>{`${plainNumber(data.dose.mgNPerLPerDay)} mg N/L a day`}</AppText>
               <AppText>{`= ${plainNumber(data.dose.ammoniumChlorideGPerDay)} g ammonium chloride a day`}</AppText>
               {data.dose.ammoniaSolutionMlPerDay !== null ? <AppText>{`or ${plainNumber(data.dose.ammoniaSolutionMlPerDay)} mL of your ammonia solution a day`}</AppText> : null}
+              <AppText weight="bold" testID="removal-delivery">{deliveryLine(data)}</AppText>
             </View>
           ) : null}
           <AppText>{`Feeding: ${data.feeding.before} → ${data.feeding.after}`}</AppText>

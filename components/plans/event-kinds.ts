@@ -4,7 +4,7 @@
  * record is typed over every engine event type, so a new kind that is missing here does not
  * compile (pure, no React Native).
  */
-import type { ScenarioEvent } from '@/simulation/scenario';
+import { MAX_DOSES_PER_DAY, type ScenarioEvent } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
 import { parseDecimal } from '@/lib/units-format';
 
@@ -17,6 +17,10 @@ export interface FieldSpec {
   label: string;
   hint?: string;
   numeric: boolean;
+  /** A pick among these values (radio buttons) instead of typed text. */
+  choices?: readonly { value: string; label: string }[];
+  /** Shown only when this holds for the form's text (absent: always). */
+  shownWhen?(f: EventFields): boolean;
 }
 
 export interface EventKind<T extends EventType> {
@@ -66,6 +70,50 @@ function fishFromFields(f: EventFields): { species?: string; name?: string; coun
 export function fishName(id: string | undefined, name: string | undefined): string {
   if (id) return findSpecies(id)?.commonName ?? id;
   return name ?? 'fish';
+}
+
+/** How the keeper gives a dose: the form's words for the engine's `delivery` and `timesPerDay`. */
+export const DOSE_DELIVERY_CHOICES = [
+  { value: 'once', label: 'Once' },
+  { value: 'split', label: 'N times a day' },
+  { value: 'continuous', label: 'Continuous (dosing pump / drip)' },
+] as const;
+type DeliveryText = (typeof DOSE_DELIVERY_CHOICES)[number]['value'];
+
+function deliveryText(e: EventOf<'ammonia-dose'>): DeliveryText {
+  if (e.delivery === 'continuous') return 'continuous';
+  return (e.timesPerDay ?? 1) > 1 ? 'split' : 'once';
+}
+
+/** The form's delivery → the event's fields; N times a day with no number gives NaN, which the schema names. */
+function deliveryFromFields(f: EventFields): Record<string, unknown> {
+  if (f.delivery === 'continuous') return { delivery: 'continuous' };
+  if (f.delivery === 'split') return { timesPerDay: num(f.timesPerDay) ?? NaN };
+  return {};
+}
+
+/** "1 mg N/L", "2 g ammonium chloride", "5 mL ammonia solution" */
+function doseWords(a: EventOf<'ammonia-dose'>['amount']): string {
+  return a.unit === 'mgN-per-L' ? `${a.value} mg N/L` : a.unit === 'ammonium-chloride-g' ? `${a.grams} g ammonium chloride` : `${a.mL} mL ammonia solution`;
+}
+
+/** A dose in a sentence: how much, how it goes in, how often. */
+function doseSentence(e: EventOf<'ammonia-dose'>): string {
+  const repeats = e.repeatEveryDays !== undefined && (e.repeatCount ?? 1) > 1;
+  const count = e.repeatCount ?? 1;
+  if (e.delivery === 'continuous') {
+    const span = !repeats ? 'over one day' : e.repeatEveryDays === 1 ? `a day for ${days(count)}` : `over a day, every ${days(e.repeatEveryDays!)}, ${count} times`;
+    return `Dose ammonia ${doseWords(e.amount)} ${span}, continuously (dosing pump or drip)`;
+  }
+  const n = e.timesPerDay ?? 1;
+  const split = n > 1 ? ` in ${n} equal doses ${plainHours(24 / n)} apart` : '';
+  const times = repeats ? `, every ${e.repeatEveryDays === 1 ? 'day' : days(e.repeatEveryDays!)}, ${count} times` : '';
+  return `Dose ammonia ${doseWords(e.amount)}${split}${times}`;
+}
+
+/** "6 h", "4.8 h" */
+function plainHours(h: number): string {
+  return `${Number(h.toFixed(1))} h`;
 }
 
 const FISH_PATHS = { 'fish.count': 'count', 'fish.lengthCm': 'lengthCm', 'fish.species': 'species', 'fish.name': 'species', 'fish.massG': 'lengthCm' };
@@ -121,20 +169,34 @@ export const EVENT_KINDS: { readonly [T in EventType]: EventKind<T> } = {
   'ammonia-dose': {
     label: 'Ammonia dose',
     fields: [
-      { key: 'mgNPerL', label: 'Dose (mg N/L)', hint: 'Ammonia as nitrogen per litre of tank water', numeric: true },
-      { key: 'repeatEveryDays', label: 'Repeat every (days)', hint: 'Leave empty for one dose', numeric: true },
-      { key: 'repeatCount', label: 'Doses in all', numeric: true },
+      { key: 'mgNPerL', label: 'Dose (mg N/L)', hint: 'Ammonia as nitrogen per litre of tank water; split or continuous: the whole day’s amount', numeric: true },
+      { key: 'delivery', label: 'How it goes in', numeric: false, choices: DOSE_DELIVERY_CHOICES },
+      {
+        key: 'timesPerDay',
+        label: 'Times a day',
+        hint: `2 to ${MAX_DOSES_PER_DAY}, in equal parts spread evenly over the day`,
+        numeric: true,
+        shownWhen: (f) => f.delivery === 'split',
+      },
+      { key: 'repeatEveryDays', label: 'Repeat every (days)', hint: 'Leave empty for one day’s dose', numeric: true },
+      { key: 'repeatCount', label: 'Doses in all', hint: 'Days of dosing, counting the first', numeric: true },
     ],
-    blank: { mgNPerL: '1', repeatEveryDays: '', repeatCount: '' },
-    toFields: (e) => ({ mgNPerL: e.amount.unit === 'mgN-per-L' ? text(e.amount.value) : '', repeatEveryDays: text(e.repeatEveryDays), repeatCount: text(e.repeatCount) }),
-    fromFields: (f) => ({ amount: { unit: 'mgN-per-L', value: num(f.mgNPerL) }, repeatEveryDays: num(f.repeatEveryDays), repeatCount: num(f.repeatCount) }),
+    blank: { mgNPerL: '1', delivery: 'once', timesPerDay: '4', repeatEveryDays: '', repeatCount: '' },
+    toFields: (e) => ({
+      mgNPerL: e.amount.unit === 'mgN-per-L' ? text(e.amount.value) : '',
+      delivery: deliveryText(e),
+      timesPerDay: (e.timesPerDay ?? 1) > 1 ? text(e.timesPerDay) : '4',
+      repeatEveryDays: text(e.repeatEveryDays),
+      repeatCount: text(e.repeatCount),
+    }),
+    fromFields: (f) => ({
+      amount: { unit: 'mgN-per-L', value: num(f.mgNPerL) },
+      ...deliveryFromFields(f),
+      repeatEveryDays: num(f.repeatEveryDays),
+      repeatCount: num(f.repeatCount),
+    }),
     pathToField: { 'amount.value': 'mgNPerL' },
-    sentence: (e) => {
-      const a = e.amount;
-      const dose = a.unit === 'mgN-per-L' ? `${a.value} mg N/L` : a.unit === 'ammonium-chloride-g' ? `${a.grams} g ammonium chloride` : `${a.mL} mL ammonia solution`;
-      const times = e.repeatEveryDays && (e.repeatCount ?? 1) > 1 ? `, every ${e.repeatEveryDays === 1 ? 'day' : days(e.repeatEveryDays)}, ${e.repeatCount} times` : '';
-      return `Dose ammonia ${dose}${times}`;
-    },
+    sentence: doseSentence,
   },
   'filter-clean': {
     label: 'Media rinse',

@@ -31,6 +31,7 @@ import { planStatusLabel } from '@/components/tanks/tank-labels';
 import { AdvicePanel } from '@/components/plans/advice-panel';
 import { CountSlider } from '@/components/plans/count-slider';
 import { EventForm } from '@/components/plans/event-form';
+import { fishOnDay } from '@/shared/fish-on-day';
 import { EventTimeline } from '@/components/plans/event-timeline';
 
 const NO_EVENTS: ScenarioEvent[] = [];
@@ -91,6 +92,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const events = draft?.events ?? NO_EVENTS;
   const dirty = draft?.dirty ?? false;
   const sTank = useMemo(() => scenarioTankOf(tank), [tank]);
+  const tankFish = tank.livestock.reduce((n, l) => n + l.count, 0);
   const live = useLiveForecast(sTank, draft ? events : undefined);
 
   // The saved plan's server forecast (with its band) until the draft changes; then the live one.
@@ -154,6 +156,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           editing={selected !== null ? events[selected] ?? null : null}
           onSubmit={(e) => (selected !== null ? updateEvent(planId, selected, e) : addEvent(planId, e))}
           onCancel={selected !== null ? () => select(planId, null) : undefined}
+          fishOnDay={(day) => fishOnDay(tankFish, events, day)}
         />
       </Card>
 

@@ -3,7 +3,8 @@ import { forecastSentences, START_SENTENCES } from '../../shared/forecast-view.j
 import type { ForecastView, PlanForecastResponse } from '../../shared/schemas/plan.js';
 import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent } from '../../simulation/scenario.js';
 import { tankScenario, type StartReason } from '../../shared/tank-scenario.js';
-import { DOSING_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAUTIONS } from '../../simulation/advice/cautions.js';
+import { DOSING_CAUTIONS, DOSING_WITH_FISH_CAUTIONS, ESTIMATE_CAUTIONS, REHOMING_CAUTIONS, WATER_CHANGE_CAUTIONS } from '../../simulation/advice/cautions.js';
+import { dosesWithFish } from '../../shared/fish-on-day.js';
 import { validationFailed } from '../errors.js';
 import { FORECAST_BAND_MEMBERS } from '../workers/engine-tasks.js';
 import { runEngine, type EngineCaller } from './engine-runs.js';
@@ -27,12 +28,16 @@ export async function planScenario(ds: DataSource, own: OwnPlan, events: readonl
   }
 }
 
-/** Cautions for a plan: always the estimate ones; dosing, rehoming and water changes when it has them. */
-export function planCautions(events: readonly ScenarioEvent[]): string[] {
+/**
+ * Cautions for a plan: always the estimate ones; dosing (and dosing with fish present, when a
+ * dose falls on a day the tank holds `fishAtStart` or more), rehoming and water changes when it has them.
+ */
+export function planCautions(events: readonly ScenarioEvent[], fishAtStart = 0): string[] {
   const has = (types: ScenarioEvent['type'][]) => events.some((e) => types.includes(e.type));
   return [
     ...ESTIMATE_CAUTIONS,
     ...(has(['ammonia-dose']) ? DOSING_CAUTIONS : []),
+    ...(dosesWithFish(fishAtStart, events) ? DOSING_WITH_FISH_CAUTIONS : []),
     ...(events.some((e) => e.type === 'remove-fish' || (e.type === 'move-fish' && e.direction === 'out')) ? REHOMING_CAUTIONS : []),
     ...(has(['water-change']) ? WATER_CHANGE_CAUTIONS : []),
   ];
@@ -88,6 +93,6 @@ export async function forecastPlan(ds: DataSource, own: OwnPlan, caller?: Engine
     computedAt: computedAt.toISOString(),
     forecast: stored.forecast,
     explanation: [START_SENTENCES[startReason], ...forecastSentences(stored.forecast), ...stored.explanation],
-    cautions: planCautions(own.plan.events),
+    cautions: planCautions(own.plan.events, scenario.fish.reduce((n, f) => n + f.count, 0)),
   };
 }

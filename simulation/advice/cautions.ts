@@ -10,12 +10,22 @@ export const ESTIMATE_CAUTIONS: readonly string[] = Object.freeze([
   'For questions about fish health, ask a qualified aquatic veterinarian.',
 ]);
 
-/** Said beside any ammonia dose. */
-export const DOSING_CAUTIONS: readonly string[] = Object.freeze([
+/** Handling ammonia solutions and ammonium chloride: said beside any ammonia dose and on the dose form. */
+export const AMMONIA_HANDLING_CAUTIONS: readonly string[] = Object.freeze([
   'Ammonia solutions and ammonium chloride are irritants: wear gloves and eye protection, and work in a ventilated place.',
   'Use only pure ammonia (ammonia and water, nothing else) or pure ammonium chloride: no surfactants, perfume, dye or "cleaning" additives.',
   'Keep the products out of reach of children and pets, in their labelled containers.',
   'Follow the product label and your local rules for storage and disposal.',
+]);
+
+/** Dosing a tank that holds fish: said beside a dose with fish present, and on the dose form for such a tank. */
+export const DOSING_WITH_FISH_CAUTIONS: readonly string[] = Object.freeze([
+  'With fish in the tank, every dose raises the ammonia they swim in: dose only as far as the forecast stays under the limits, split the day\'s amount or give it continuously, test daily, and stop dosing if ammonia or nitrite reads high.',
+]);
+
+/** Said beside any ammonia dose. */
+export const DOSING_CAUTIONS: readonly string[] = Object.freeze([
+  ...AMMONIA_HANDLING_CAUTIONS,
   'Dose into the tank only while fish are absent, or while the forecast stays under the limits; measure doses — never pour by eye.',
 ]);
 

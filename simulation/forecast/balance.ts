@@ -27,7 +27,8 @@ export interface NitrogenBalance {
 /** The balance and the doses given (by time, for the summary's recent dose). */
 export interface NitrogenLedger {
   balance: NitrogenBalance;
-  doses: { time: number; mg: number }[];
+  /** pulses (from = to) and stretches of continuous dosing, mg each */
+  doses: { from: number; to: number; mg: number }[];
   /** Plant uptake state at the start (the state vector accumulates uptake). */
   plantStart: number;
 }
@@ -65,6 +66,14 @@ export function openLedger(model: Model, y: readonly number[]): NitrogenLedger {
 export function noteFeeding(ledger: NitrogenLedger, flows: { offeredN: number; retained: number }, days: number): void {
   ledger.balance.feedOfferedMg += flows.offeredN * days;
   ledger.balance.fishRetainedMg += flows.retained * days;
+}
+
+/** Continuous dosing over a segment [from, to] at `flowMgNPerLPerDay` in a tank of `volumeL`. */
+export function noteDoseFlow(ledger: NitrogenLedger, flowMgNPerLPerDay: number, volumeL: number, from: number, to: number): void {
+  if (flowMgNPerLPerDay === 0) return;
+  const mg = flowMgNPerLPerDay * volumeL * (to - from);
+  ledger.balance.dosedMg += mg;
+  ledger.doses.push({ from, to, mg });
 }
 
 /** Closes the balance on the end state y. */

@@ -1,6 +1,6 @@
 /**
  * The conditions of a run that events change (temperature, feeding, fish mass, active
- * medications and aeration losses) and the model's segment conditions they give.
+ * medications, aeration losses and continuous doses) and the model's segment conditions they give.
  */
 import { feedNitrogenFlows, type FeedFlows, type Feeding } from '../bioload';
 import { carbonateCo2 } from '../chemistry';
@@ -38,6 +38,8 @@ export interface RunConditions {
   /** Active medications and aeration losses by event index → multiplier. */
   medications: Map<number, number>;
   aerationLosses: Map<number, number>;
+  /** Continuous doses flowing now by event index → mg N/(L·d). */
+  doseFlows: Map<number, number>;
   /** Nitrogen flows of the food at the present fish mass and feeding. */
   feedFlows: FeedFlows;
 }
@@ -45,6 +47,13 @@ export interface RunConditions {
 /** The feed's nitrogen flows at the conditions' fish mass and feeding (× the run's feeding multiplier). */
 export function feedFlowsOf(c: Pick<RunConditions, 'fishMassG' | 'feeding'>, p: Parameters, feedingMultiplier: number): FeedFlows {
   return feedNitrogenFlows(c.fishMassG, c.feeding, p, feedingMultiplier);
+}
+
+/** The continuous doses flowing now, mg N/(L·d) in all. */
+export function doseFlowOf(c: Pick<RunConditions, 'doseFlows'>): number {
+  let total = 0;
+  for (const rate of c.doseFlows.values()) total += rate;
+  return total;
 }
 
 export function segmentConditions(tank: Tank, chemistry: TankChemistry, c: RunConditions, p: Parameters): SegmentConditions {
@@ -59,7 +68,8 @@ export function segmentConditions(tank: Tank, chemistry: TankChemistry, c: RunCo
     co2MgL: chemistry.co2MgL,
     oxygenShare: oxygen,
     activityMultiplier: activity,
-    excretionTan: c.feedFlows.excretedTan / tank.volumeL,
+    // A continuous dose enters the water as TAN, like the fish's own excretion.
+    excretionTan: c.feedFlows.excretedTan / tank.volumeL + doseFlowOf(c),
     orgInput: c.feedFlows.toOrg / tank.volumeL,
     plantUptake: p.plantUptakeHeavy * PLANTING_UPTAKE_SHARE[tank.plants],
     lightHoursPerDay: tank.lightHoursPerDay,

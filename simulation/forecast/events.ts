@@ -48,9 +48,16 @@ export function applyEvent(scope: EventScope, event: ScenarioEvent, index: numbe
     }
     case 'ammonia-dose': {
       const c = doseMgNPerL(event.amount, V);
-      y[I_TAN] += c;
-      ledger.balance.dosedMg += c * V;
-      ledger.doses.push({ time, mg: c * V });
+      // A continuous dose flows at c a day until its 'end-dose-flow' (the ledger counts it per segment).
+      if (event.delivery === 'continuous') {
+        conditions.doseFlows.set(index, c);
+        return;
+      }
+      // One pulse: the whole dose, or its 1/n share when split (timeline.ts places the n parts).
+      const part = c / (event.timesPerDay ?? 1);
+      y[I_TAN] += part;
+      ledger.balance.dosedMg += part * V;
+      ledger.doses.push({ from: time, to: time, mg: part * V });
       return;
     }
     case 'filter-clean': {
@@ -94,6 +101,9 @@ export function applyBreakpoint(scope: EventScope, bp: Breakpoint): void {
         break;
       case 'end-aeration-loss':
         conditions.aerationLosses.delete(action.index);
+        break;
+      case 'end-dose-flow':
+        conditions.doseFlows.delete(action.index);
         break;
       case 'event':
       case 'routine':

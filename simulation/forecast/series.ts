@@ -58,8 +58,17 @@ export function createSeries(times: readonly number[], zoneIds: readonly string[
   };
 }
 
-/** Writes sample k from state s, under the model's current conditions and the given temperature. */
-export function createRecorder(series: ForecastSeries, model: Model, temperatureC: () => number): (k: number, s: ArrayLike<number>) => void {
+/**
+ * Writes sample k from state s, under the model's current conditions and the given temperature.
+ * The load is the fish's and the food's: a continuous dose (`doseFlow`, mg N/(L·d)) shares the
+ * model's TAN source term and is taken back out of it.
+ */
+export function createRecorder(
+  series: ForecastSeries,
+  model: Model,
+  temperatureC: () => number,
+  doseFlow: () => number = () => 0,
+): (k: number, s: ArrayLike<number>) => void {
   const act = model.current;
   const nz = series.zones.length;
   const V = model.volumeL;
@@ -76,6 +85,6 @@ export function createRecorder(series: ForecastSeries, model: Model, temperature
       series.zones[z].ao[k] = s[aoIndex(z)] * act.activityAo;
       series.zones[z].no[k] = s[noIndex(z)] * act.activityNo;
     }
-    series.loadMgNPerDay[k] = (act.excretionTan + act.ammonification * s[I_ORG]) * V;
+    series.loadMgNPerDay[k] = (act.excretionTan - doseFlow() + act.ammonification * s[I_ORG]) * V;
   };
 }

@@ -20,7 +20,7 @@ import type { IntegrationStats } from '../solver';
 import { buildTimeline } from '../timeline';
 import { overBudgetFields } from '../work-budget';
 import { closeLedger, openLedger } from './balance';
-import { feedFlowsOf, segmentConditions, tankChemistry, type RunConditions } from './conditions';
+import { doseFlowOf, feedFlowsOf, segmentConditions, tankChemistry, type RunConditions } from './conditions';
 import type { EventScope } from './events';
 import { initialState } from './initial-state';
 import { spareCapacity } from './spare-capacity';
@@ -87,7 +87,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
 
   // --- conditions that events change -------------------------------------------------
   const chemistry = tankChemistry(tank);
-  const effects = from ? restoredEffects(from, scenario) : { medications: new Map<number, number>(), aerationLosses: new Map<number, number>() };
+  const effects = from ? restoredEffects(from, scenario) : { medications: new Map<number, number>(), aerationLosses: new Map<number, number>(), doseFlows: new Map<number, number>() };
   const start = { temperatureC: from ? from.temperatureC : tank.temperatureC, feeding: from ? from.feeding : scenario.feeding, fishMassG: from ? from.fishMassG : timeline.initialFishMassG };
   const conditions: RunConditions = { ...start, ...effects, feedFlows: feedFlowsOf(start, p, fm) };
   if (conditions.feedFlows.toOrg < -1e-12) throw optionError('options.parameters', 'Feed parameters give more N out of the food than it holds.');
@@ -103,7 +103,7 @@ export function createForecastSession(scenario: Scenario, options: ForecastOptio
   const spare = spareCapacity(model, y, conditions.feedFlows.excretedTan + conditions.feedFlows.toOrg);
   const times = sampleTimes(opt.horizon, opt.step, t0);
   const series = createSeries(times, zones.map((z) => z.id), chemistry.phModel === 'carbonate');
-  const record = createRecorder(series, model, () => conditions.temperatureC);
+  const record = createRecorder(series, model, () => conditions.temperatureC, () => doseFlowOf(conditions));
   const ledger = openLedger(model, y);
   const eventPeaks = noEventPeaks();
   const scope: EventScope = { tank, chemistry, zones, model, params: p, feedingMultiplier: fm, y, conditions, ledger };

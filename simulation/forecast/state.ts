@@ -22,6 +22,8 @@ export interface ForecastState {
   /** active medications and aeration losses: [position among the events before `day`, multiplier] */
   medications: readonly (readonly [number, number])[];
   aerationLosses: readonly (readonly [number, number])[];
+  /** continuous doses flowing: [position among the events before `day`, mg N/(L·d)] */
+  doseFlows: readonly (readonly [number, number])[];
   /** last accepted solver step, days (a continued run starts with it, as an uninterrupted one would) */
   stepHint: number | null;
   /** identifies the scenario prefix, parameters and feeding multiplier that produced the state */
@@ -63,14 +65,11 @@ export function checkSavedState(from: ForecastState, origin: StateOrigin, stateS
   }
 }
 
-/** The active medications and aeration losses of a saved state, by event index. */
-export function restoredEffects(from: ForecastState, scenario: Scenario): Pick<RunConditions, 'medications' | 'aerationLosses'> {
+/** The active medications, aeration losses and continuous doses of a saved state, by event index. */
+export function restoredEffects(from: ForecastState, scenario: Scenario): Pick<RunConditions, 'medications' | 'aerationLosses' | 'doseFlows'> {
   const idx = prefixIndices(scenario, from.day);
-  const medications = new Map<number, number>();
-  const aerationLosses = new Map<number, number>();
-  for (const [pos, m] of from.medications) medications.set(idx[pos], m);
-  for (const [pos, a] of from.aerationLosses) aerationLosses.set(idx[pos], a);
-  return { medications, aerationLosses };
+  const byIndex = (entries: ForecastState['medications']) => new Map(entries.map(([pos, v]) => [idx[pos], v] as const));
+  return { medications: byIndex(from.medications), aerationLosses: byIndex(from.aerationLosses), doseFlows: byIndex(from.doseFlows) };
 }
 
 /** Takes states of one run; the key only changes when another event falls before the day, so it is reused between those. */
@@ -91,6 +90,7 @@ export function createSnapshotter(origin: StateOrigin): (day: number, y: readonl
       fishMassG: conditions.fishMassG,
       medications: [...conditions.medications].map(([i, m]) => [pos.get(i) as number, m] as const),
       aerationLosses: [...conditions.aerationLosses].map(([i, a]) => [pos.get(i) as number, a] as const),
+      doseFlows: [...conditions.doseFlows].map(([i, r]) => [pos.get(i) as number, r] as const),
       stepHint,
       key: lastKey.key,
     };

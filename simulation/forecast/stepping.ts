@@ -5,7 +5,8 @@
 import type { Model } from '../model';
 import { SolverError, type IntegrationStats, type SampleSink, type SegmentIntegrator } from '../solver';
 import type { Breakpoint } from '../timeline';
-import { noteFeeding } from './balance';
+import { noteDoseFlow, noteFeeding } from './balance';
+import { doseFlowOf } from './conditions';
 import { applyBreakpoint, type EventScope } from './events';
 import { notePeaks, type EventPeaks } from './peaks';
 
@@ -69,6 +70,7 @@ export function createStepper(input: StepperInput): Stepper {
       let kEnd = k;
       while (kEnd < ns && times[kEnd] < tEnd - 1e-9) kEnd++;
       noteFeeding(scope.ledger, scope.conditions.feedFlows, tEnd - t);
+      noteDoseFlow(scope.ledger, doseFlowOf(scope.conditions), scope.tank.volumeL, t, tEnd);
       const segment = integrator.integrate({ f: rhs, from: t, to: tEnd, y, times, first: k, end: kEnd, sink: record });
       work.steps += segment.stats.steps;
       work.accepted += segment.stats.accepted;

@@ -58,7 +58,7 @@ export function summarize(input: SummaryInput): ForecastSummary {
   const constant = (v: number) => new Array<number>(ns).fill(v);
   const last = ns - 1;
   const window = Math.min(7, horizon - input.startDay);
-  const recentDose = ledger.doses.filter((d) => d.time > horizon - window - 1e-9).reduce((s, d) => s + d.mg, 0) / window;
+  const recentDose = recentDosedMg(ledger.doses, horizon - window, horizon) / window;
   return {
     peaks: {
       tan: higherPeak(peakOf(series.days, series.tanMgN), eventPeaks.tan),
@@ -89,6 +89,20 @@ export function summarize(input: SummaryInput): ForecastSummary {
     nitrogenBalance: input.balance,
     spareCapacity: input.spareCapacity,
   };
+}
+
+/** mg dosed within (from, to]: pulses inside it, and the part of each continuous stretch that overlaps it. */
+function recentDosedMg(doses: NitrogenLedger['doses'], from: number, to: number): number {
+  let mg = 0;
+  for (const d of doses) {
+    if (d.to === d.from) {
+      if (d.from > from - 1e-9) mg += d.mg;
+      continue;
+    }
+    const overlap = Math.min(d.to, to) - Math.max(d.from, from);
+    if (overlap > 0) mg += (d.mg * overlap) / (d.to - d.from);
+  }
+  return mg;
 }
 
 /**

@@ -53,6 +53,9 @@ const planBase = {
     { type: 'water-change', day: 9, percent: 25 },
     { type: 'ammonia-dose', day: 10, amount: { unit: 'mgN-per-L', value: 0.5 }, repeatEveryDays: 2, repeatCount: 3 },
     { type: 'ammonia-dose', day: 11, amount: { unit: 'ammonium-chloride-g', grams: 0.1 } },
+    // Weekly, so the repeat-count edge (1000) stays a few hundred timeline entries; the budget's own tests cover the cap.
+    { type: 'ammonia-dose', day: 12, amount: { unit: 'mgN-per-L', value: 0.2 }, timesPerDay: 2, repeatEveryDays: 7, repeatCount: 3 },
+    { type: 'ammonia-dose', day: 12, amount: { unit: 'mgN-per-L', value: 0.2 }, delivery: 'continuous', repeatEveryDays: 7, repeatCount: 3 },
     { type: 'ammonia-dose', day: 11, amount: { unit: 'ammonia-solution-mL', mL: 1, percentNH3: 10, densityGPerMl: 0.96 } },
     { type: 'filter-clean', day: 12, zoneId: 'filter', action: 'rinse', shareLost: 0.3 },
     { type: 'medication', day: 13, durationDays: 3, oxidationMultiplier: 0.5 },

@@ -24,7 +24,7 @@ function scope(): EventScope {
   y[noIndex(0)] = 80;
   y[aoIndex(1)] = 50;
   const start = { temperatureC: 25, feeding: scenario.feeding, fishMassG: 10 };
-  const conditions: RunConditions = { ...start, medications: new Map(), aerationLosses: new Map(), feedFlows: feedFlowsOf(start, params, 1) };
+  const conditions: RunConditions = { ...start, medications: new Map(), aerationLosses: new Map(), doseFlows: new Map(), feedFlows: feedFlowsOf(start, params, 1) };
   return { tank: scenario.tank, chemistry: tankChemistry(scenario.tank), zones, model, params, feedingMultiplier: 1, y, conditions, ledger: openLedger(model, y) };
 }
 
@@ -46,7 +46,24 @@ describe('what each event kind does to a running forecast (simulation/forecast/e
     const s = scope();
     applyEvent(s, { type: 'ammonia-dose', day: 5, amount: { unit: 'mgN-per-L', value: 1.5 } }, 0, 5);
     expect(s.y[I_TAN]).toBeCloseTo(3.5, 12);
-    expect(s.ledger.doses).toEqual([{ time: 5, mg: 1.5 * s.tank.volumeL }]);
+    expect(s.ledger.doses).toEqual([{ from: 5, to: 5, mg: 1.5 * s.tank.volumeL }]);
+  });
+
+  it('a split dose adds its 1/n share per pulse; a continuous one sets a flow its end removes, adding nothing at once', () => {
+    const s = scope();
+    applyEvent(s, { type: 'ammonia-dose', day: 5, amount: { unit: 'mgN-per-L', value: 1.5 }, timesPerDay: 3 }, 0, 5);
+    expect(s.y[I_TAN]).toBeCloseTo(2.5, 12);
+    applyBreakpoint(s, { time: 5.5, fishMassG: 10, actions: [] });
+    const before = s.y.slice();
+    const excretionBefore = s.model.current.excretionTan;
+    const flow: ScenarioEvent = { type: 'ammonia-dose', day: 6, amount: { unit: 'mgN-per-L', value: 0.4 }, delivery: 'continuous', repeatEveryDays: 1, repeatCount: 3 };
+    applyBreakpoint(s, { time: 6, fishMassG: 10, actions: [{ kind: 'event', index: 2, event: flow }] });
+    expect(s.y).toEqual(before);
+    expect([...s.conditions.doseFlows]).toEqual([[2, 0.4]]);
+    expect(s.model.current.excretionTan).toBeCloseTo(excretionBefore + 0.4, 12);
+    applyBreakpoint(s, { time: 9, fishMassG: 10, actions: [{ kind: 'end-dose-flow', index: 2 }] });
+    expect(s.conditions.doseFlows.size).toBe(0);
+    expect(s.model.current.excretionTan).toBeCloseTo(excretionBefore, 12);
   });
 
   it('a filter rinse takes its share of both populations from that zone only', () => {

@@ -44,6 +44,16 @@ describe('resumable forecasts (createForecastSession, options.from)', () => {
     expectSameFrom(rest, full);
   });
 
+  it('continuing from a saved state inside a continuous dose keeps the dose flowing to its end', () => {
+    const s = parseScenario(matureWithPlaties(20, [
+      { type: 'ammonia-dose', day: 3, amount: { unit: 'mgN-per-L', value: 0.6 }, delivery: 'continuous', repeatEveryDays: 1, repeatCount: 10 },
+    ]));
+    const full = forecastParsed(s, options);
+    const state = createForecastSession(s, options).advanceTo(7);
+    expect(state.doseFlows).toEqual([[0, 0.6]]);
+    expectSameFrom(forecastParsed(s, { ...options, from: state }), full);
+  });
+
   it('an event added on the saved day is applied by the continued run (the state is taken before that day’s events)', () => {
     const s = parseScenario(matureWithPlaties(20));
     const added: Scenario = { ...s, events: [...s.events, { type: 'add-fish', day: 6, fish: { species: 'platy', count: 30 } }] };

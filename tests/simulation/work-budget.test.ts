@@ -74,6 +74,42 @@ describe('the schemas hold physical minimums on repeats, steps and durations', (
     expect(eventIssue(dose({ repeatEveryDays: 0.25 }))).toBeNull();
   });
 
+  it('refuses a split dose beyond 8 parts a day (3 h apart) or not whole, naming timesPerDay with a message that says why', () => {
+    const issue = (event: object) => {
+      const r = eventSchema.safeParse(event);
+      return r.success ? null : `${r.error.issues[0]!.path.join('.')}: ${r.error.issues[0]!.message}`;
+    };
+    expect(issue(dose({ timesPerDay: 9, repeatEveryDays: 1 }))).toMatch(/^timesPerDay: timesPerDay is at most 8 \(3 h apart\)/);
+    expect(issue(dose({ timesPerDay: 0 }))).toMatch(/^timesPerDay: timesPerDay must be at least 1/);
+    expect(issue(dose({ timesPerDay: 2.5 }))).toMatch(/^timesPerDay: timesPerDay must be a whole number/);
+    expect(issue(dose({ timesPerDay: 8, repeatEveryDays: 1 }))).toBeNull();
+  });
+
+  it('refuses a split or continuous dose repeated less than a day apart, a split continuous dose, and an unknown delivery', () => {
+    const path = (event: object) => eventIssue(event);
+    expect(path(dose({ timesPerDay: 4, repeatEveryDays: 0.5 }))).toBe('repeatEveryDays');
+    expect(path(dose({ delivery: 'continuous', repeatEveryDays: 0.25 }))).toBe('repeatEveryDays');
+    expect(path(dose({ delivery: 'continuous', timesPerDay: 4 }))).toBe('timesPerDay');
+    expect(path(dose({ delivery: 'drip' }))).toBe('delivery');
+    expect(path(dose({ delivery: 'continuous', repeatEveryDays: 1, repeatCount: 30 }))).toBeNull();
+    // Through the scenario, the engine's ScenarioError names the event's field.
+    let error: unknown;
+    try {
+      parseScenario(withEvents([dose({ timesPerDay: 4, repeatEveryDays: 0.5 })]));
+    } catch (e) {
+      error = e;
+    }
+    expect(error).toBeInstanceOf(ScenarioError);
+    expect(Object.keys((error as ScenarioError).fields)).toEqual(['events.0.repeatEveryDays']);
+  });
+
+  it('refuses a year of doses split 8 a day over the budget, naming timesPerDay; continuous delivery of the same fits in 2 entries', () => {
+    const r = scenarioSchema.safeParse(withEvents([dose({ timesPerDay: 8, repeatEveryDays: 1 })], 365));
+    expect(r.success ? null : r.error.issues[0]!.path.join('.')).toBe('events.0.timesPerDay');
+    expect(r.success ? '' : r.error.issues[0]!.message).toMatch(/give them continuously/);
+    expect(countTimelineEntries({ tank: {}, events: [dose({ delivery: 'continuous', repeatEveryDays: 1 })] }, 365).entries).toBe(2);
+  });
+
   it('refuses medications and aeration losses shorter than an hour', () => {
     expect(eventIssue({ type: 'medication', day: 0, durationDays: 1e-9, oxidationMultiplier: 0.5 })).toBe('durationDays');
     expect(eventIssue({ type: 'aeration-loss', day: 0, durationDays: 0.01, oxygenShare: 0.5 })).toBe('durationDays');

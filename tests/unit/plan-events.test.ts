@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { addDays, planCheckDays } from '@/shared/plan-check-days';
 import { applySchedule, sortEvents } from '@/lib/draft-store';
-import { blankFields, describeEvent, describeEventOnDay, eventToFields, fieldsToEvent, EVENT_TYPES } from '@/components/plans/event-fields';
+import { blankFields, describeEvent, describeEventOnDay, eventToFields, fieldsToEvent, EVENT_TYPES, FIELDS } from '@/components/plans/event-fields';
 import { EVENT_KINDS } from '@/components/plans/event-kinds';
 import { eventSchema, type ScenarioEvent } from '@/simulation/scenario';
 
@@ -74,6 +74,50 @@ describe('event fields', () => {
 
   it('names catalogue fish by their common name', () => {
     expect(describeEvent(add(0, 4))).toBe('Add 4 Neon tetra');
+  });
+});
+
+describe('the dose form: once, N times a day or continuous', () => {
+  const split: ScenarioEvent = { type: 'ammonia-dose', day: 1, amount: { unit: 'mgN-per-L', value: 0.4 }, timesPerDay: 4, repeatEveryDays: 1, repeatCount: 20 };
+  const steady: ScenarioEvent = { type: 'ammonia-dose', day: 1, amount: { unit: 'mgN-per-L', value: 0.4 }, delivery: 'continuous', repeatEveryDays: 1, repeatCount: 20 };
+
+  it('round-trips a split and a continuous dose through the form', () => {
+    expect(eventToFields(split)).toMatchObject({ delivery: 'split', timesPerDay: '4' });
+    expect(eventToFields(steady)).toMatchObject({ delivery: 'continuous' });
+    for (const e of [split, steady]) expect(fieldsToEvent(e.type, eventToFields(e))).toEqual({ event: e });
+  });
+
+  it('offers the three ways and shows "Times a day" only for N times a day', () => {
+    const specs = FIELDS['ammonia-dose'];
+    const delivery = specs.find((f) => f.key === 'delivery')!;
+    expect(delivery.choices?.map((c) => c.label)).toEqual(['Once', 'N times a day', 'Continuous (dosing pump / drip)']);
+    const times = specs.find((f) => f.key === 'timesPerDay')!;
+    expect(times.shownWhen?.({ delivery: 'split' })).toBe(true);
+    expect(times.shownWhen?.({ delivery: 'once' })).toBe(false);
+    expect(times.shownWhen?.({ delivery: 'continuous' })).toBe(false);
+  });
+
+  it('a new dose is given once; choosing "once" drops any split the form still holds', () => {
+    const f = blankFields('ammonia-dose', 2);
+    expect(f.delivery).toBe('once');
+    expect(fieldsToEvent('ammonia-dose', { ...f, timesPerDay: '4' })).toEqual({ event: { type: 'ammonia-dose', day: 2, amount: { unit: 'mgN-per-L', value: 1 } } });
+  });
+
+  it('puts the schema refusals under the field: no number of times, too many, or a split repeated within the day', () => {
+    const base = { ...blankFields('ammonia-dose', 0), delivery: 'split' };
+    const errorsOf = (f: Record<string, string>) => {
+      const r = fieldsToEvent('ammonia-dose', f);
+      return 'errors' in r ? r.errors : {};
+    };
+    expect(errorsOf({ ...base, timesPerDay: '' }).timesPerDay).toMatch(/whole number from 1 to 8/);
+    expect(errorsOf({ ...base, timesPerDay: '12' }).timesPerDay).toMatch(/at most 8/);
+    expect(errorsOf({ ...base, timesPerDay: '4', repeatEveryDays: '0.5' }).repeatEveryDays).toMatch(/at least 1/);
+  });
+
+  it('says how the dose goes in, in the sentence the timeline and the printed plan use', () => {
+    expect(describeEvent(split)).toBe('Dose ammonia 0.4 mg N/L in 4 equal doses 6 h apart, every day, 20 times');
+    expect(describeEvent(steady)).toBe('Dose ammonia 0.4 mg N/L a day for 20 days, continuously (dosing pump or drip)');
+    expect(describeEvent({ ...steady, repeatEveryDays: undefined, repeatCount: undefined })).toBe('Dose ammonia 0.4 mg N/L over one day, continuously (dosing pump or drip)');
   });
 });
 

@@ -41,6 +41,19 @@ describe('printDays', () => {
   });
 });
 
+describe('printDays with doses', () => {
+  it('says how each dose goes in: split into parts, or continuously by pump or drip', () => {
+    const doses: ScenarioEvent[] = [
+      { type: 'ammonia-dose', day: 1, amount: { unit: 'mgN-per-L', value: 0.4 }, timesPerDay: 4, repeatEveryDays: 1, repeatCount: 5 },
+      { type: 'ammonia-dose', day: 8, amount: { unit: 'mgN-per-L', value: 0.4 }, delivery: 'continuous', repeatEveryDays: 1, repeatCount: 5 },
+    ];
+    const rows = printDays({ startDate: '2026-03-01', events: doses, checkDays: planCheckDays(doses, '2026-03-01') });
+    expect(rows.find((r) => r.day === 1)!.todo).toEqual(['Dose ammonia 0.4 mg N/L in 4 equal doses 6 h apart, every day, 5 times']);
+    expect(rows.find((r) => r.day === 8)!.todo).toEqual(['Dose ammonia 0.4 mg N/L a day for 5 days, continuously (dosing pump or drip)']);
+    expect(rows.find((r) => r.day === 9)!.tests[0]).toMatch(/a day into the continuous ammonia dose/);
+  });
+});
+
 describe('tankFacts', () => {
   it('gives volume, temperature, pH, hardness and filter in litres and °C by default', () => {
     expect(tankFacts(tank, DEFAULT_PREFERENCES)).toEqual([

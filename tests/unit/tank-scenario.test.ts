@@ -160,6 +160,13 @@ describe('horizon', () => {
     expect(lastActionDay(dose)).toBe(18);
   });
 
+  it('counts a split dose to its last part and a continuous dose to the end of its flow', () => {
+    const base: ScenarioEvent = { type: 'ammonia-dose', day: 2, amount: { unit: 'mgN-per-L', value: 0.5 }, repeatEveryDays: 1, repeatCount: 10 };
+    expect(lastActionDay({ ...base, timesPerDay: 4 })).toBe(11.75);
+    expect(lastActionDay({ ...base, delivery: 'continuous' })).toBe(12);
+    expect(lastActionDay({ type: 'ammonia-dose', day: 2, amount: { unit: 'mgN-per-L', value: 0.5 }, delivery: 'continuous' })).toBe(3);
+  });
+
   it('caps the horizon at a year', () => {
     expect(defaultHorizonDays([addRasboras(3000)])).toBe(365);
   });
