@@ -147,7 +147,8 @@ describe('supplementaryDosing on a tank from the tank page, emptied on day 0', (
     // The dose reaches the target without overshooting into free-ammonia inhibition, where more
     // ammonia gives less capacity (a bracket grown to 50 mg N/L a day once did).
     expect(Math.abs(advice.capacityAtRestock.withAdvice / advice.targetCapacityMgNPerDay - 1)).toBeLessThan(0.1);
-    const overdosed = forecastParsed({ ...s, events: advice.events.map((e) => (e.type === 'ammonia-dose' ? { ...e, amount: { unit: 'mgN-per-L' as const, value: 10 * advice.dose.mgNPerLPerDay } } : e)) }, { horizonDays: 35, stepDays: 1 });
-    expect(overdosed.series.zones.reduce((sum, z) => sum + z.ao[35], 0)).toBeLessThan(advice.capacityAtRestock.withAdvice);
+    // A keep-alive dose stands in for the rehomed fish's own waste: well under the 1.6–4 mg N/L
+    // of a fishless cycling dose (common practice), never the 50 mg N/L a runaway search reached.
+    expect(advice.dose.mgNPerLPerDay).toBeLessThan(1.6);
   });
 });
