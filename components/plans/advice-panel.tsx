@@ -2,11 +2,10 @@ import { useState, type ReactNode } from 'react';
 import { Pressable, View } from 'react-native';
 import type { z } from 'zod';
 import { useTheme } from '@/hooks/use-theme';
-import { useAdditionAdvice, useCalibration, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
+import { useAdditionAdvice, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
 import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
 import { parseDecimal } from '@/lib/units-format';
-import { fitWindowWords, fittingLabel } from '@/lib/calibration-progress';
 import { plainNumber } from '@/shared/forecast-view';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
@@ -16,6 +15,7 @@ import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
 import { TextField } from '@/components/ui/text-field';
 import { CautionsList } from '@/components/forecast/cautions-list';
+import { FitToTests } from '@/components/tanks/fit-to-tests';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
 import { findSpecies } from '@/simulation/catalogue';
 
@@ -224,28 +224,9 @@ function RescueAdvice({ tank, planId }: AdvicePanelProps) {
 }
 
 function CalibrationAdvice({ tank }: AdvicePanelProps) {
-  const { space } = useTheme();
-  const fit = useCalibration(tank.id);
-  const data = fit.data;
   return (
     <Section testID="advice-calibration">
-      <AppText>{`Fit the model to this tank's own ammonia and nitrite tests from ${fitWindowWords()}.`}</AppText>
-      <Button label="Fit to my tests" busy={fit.isPending} busyLabel={fittingLabel(tank.readings, new Date())} onPress={() => fit.mutate({})} testID="advice-calibration-run" />
-      {fit.isPending ? (
-        <AppText tone="textMuted" accessibilityLiveRegion="polite" testID="calibration-progress">
-          Trying filter strengths and growth speeds against your readings…
-        </AppText>
-      ) : null}
-      {fit.isError ? <Banner tone="danger" title="Could not fit" message={errorText(fit.error)} testID="calibration-error" /> : null}
-      {data ? (
-        <View testID="advice-calibration-result" style={{ gap: space.sm }}>
-          <Heading level={3}>{`Fit: ${data.quality.verdict} (${data.readingsUsed} tests)`}</Heading>
-          <AppText>{`Ammonia-eating capacity now: about ${plainNumber(data.capacity.presentAoMgNPerDay)} mg N a day`}</AppText>
-          <AppText>{`Nitrite-eating capacity now: about ${plainNumber(data.capacity.presentNoMgNPerDay)} mg N a day`}</AppText>
-          <Words lines={data.explanation} />
-          <CautionsList extra={data.cautions} />
-        </View>
-      ) : null}
+      <FitToTests tank={tank} />
     </Section>
   );
 }

@@ -5,7 +5,7 @@ import { useTankDetail } from '@/hooks/use-tanks';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { SchemeOverrideContext, useTheme } from '@/hooks/use-theme';
-import { START_SENTENCES } from '@/shared/forecast-view';
+import { startLine, startWarningLines } from '@/shared/start-words';
 import { ESTIMATE_CAUTIONS } from '@/simulation/advice/cautions';
 import { MAIN_PANELS } from '@/lib/forecast-panels';
 import { unitsSummary } from '@/lib/units-format';
@@ -130,7 +130,7 @@ function PrintBody({ plan, tank, forecast, prefs }: { plan: PlanDetail; tank: Ta
           <>
             <ForecastVerdict view={view} basis={prefs.nitrogenBasis} compact testID="print-verdict" />
             <AppText variant="caption" tone="textMuted">
-              {`${START_SENTENCES[forecast.startReason]} Shaded: where 8 in 10 likely forecasts fall.`}
+              {[startLine(forecast.startState, prefs.nitrogenBasis), ...startWarningLines(forecast.startState, prefs.nitrogenBasis), 'Shaded: where 8 in 10 likely forecasts fall.'].join(' ')}
             </AppText>
             <View style={{ maxWidth: PAPER_CHART_WIDTH }}>
               <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand events={plan.events} only={MAIN_PANELS} testID="print-chart" />

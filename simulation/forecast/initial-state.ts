@@ -6,6 +6,7 @@ import type { ResolvedZone } from '../presets';
 import type { Scenario } from '../scenario';
 import { LoadTooHighError, matureSteadyState } from '../steady-state';
 import { optionError } from './options';
+import { describedStartState } from './starved-start';
 
 /** Writes the day-0 state into y (the model's conditions must be those of day 0). */
 export function initialState(scenario: Scenario, model: Model, zones: readonly ResolvedZone[], feedFlows: FeedFlows, kh0: number, y: number[], p: Parameters): void {
@@ -35,6 +36,8 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
       y[aoIndex(z)] = c.aoMgNPerDay / act.activityAo;
       y[noIndex(z)] = c.noMgNPerDay / act.activityNo;
     }
+  } else if (start.kind === 'starved' || start.kind === 'seeded') {
+    describedStartState(scenario, start, zones, kh0, y, p);
   } else {
     const load = start.loadMgNPerDay ?? feedFlows.excretedTan + feedFlows.toOrg;
     let ss;
