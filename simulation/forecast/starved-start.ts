@@ -16,8 +16,8 @@ import { createIntegrator, optionError, resolveOptions } from './options';
 
 export type DescribedStart = Extract<Start, { kind: 'starved' | 'seeded' }>;
 
-/** TAN-N a day that fish give at the scenario's feeding (the load a mature start uses: excreted + to detritus). */
-function loadOfFish(scenario: Scenario, fish: readonly FishGroup[], p: Parameters, field: string): number {
+/** Mass of the fish, g (a custom animal without a length is refused on its field). */
+function massOfFish(fish: readonly FishGroup[], p: Parameters, field: string): number {
   let massG = 0;
   fish.forEach((f, i) => {
     try {
@@ -26,8 +26,7 @@ function loadOfFish(scenario: Scenario, fish: readonly FishGroup[], p: Parameter
       throw optionError(`${field}.${i}.lengthCm`, (e as Error).message);
     }
   });
-  const flows = feedFlowsOf({ fishMassG: massG, feeding: scenario.feeding }, p, 1);
-  return flows.excretedTan + flows.toOrg;
+  return massG;
 }
 
 /** The fish the scenario adds or moves in: the load a seeded filter is meant to carry when the tank starts empty. */
@@ -35,14 +34,26 @@ function addedFish(scenario: Scenario): FishGroup[] {
   return scenario.events.flatMap((e) => (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in') ? [e.fish] : []));
 }
 
-/** A model of the tank with no fish (the starved days): same zones, water and temperature as day 0. */
-function fishlessModel(scenario: Scenario, zones: readonly ResolvedZone[], p: Parameters): Model {
+/**
+ * The tank's model under day 0's water and temperature with `fishMassG` of fish fed as the
+ * scenario feeds: the steady state needs the load's detritus share (its ORG level), the
+ * starved days need no fish at all.
+ */
+function setFish(model: Model, scenario: Scenario, p: Parameters, fishMassG: number): { load: number } {
   const tank = scenario.tank;
-  const model = createModel(zones, tank.volumeL, p);
-  const start = { temperatureC: tank.temperatureC, feeding: scenario.feeding, fishMassG: 0 };
-  const conditions = { ...start, medications: new Map<number, number>(), aerationLosses: new Map<number, number>(), feedFlows: feedFlowsOf(start, p, 1) };
-  model.setConditions(segmentConditions(tank, tankChemistry(tank), conditions, p));
-  return model;
+  const start = { temperatureC: tank.temperatureC, feeding: scenario.feeding, fishMassG };
+  const feedFlows = feedFlowsOf(start, p, 1);
+  model.setConditions(segmentConditions(tank, tankChemistry(tank), { ...start, medications: new Map(), aerationLosses: new Map(), feedFlows }, p));
+  return { load: feedFlows.excretedTan + feedFlows.toOrg };
+}
+
+/**
+ * The mature steady state at the former fish (or at a load given as a number, taken as
+ * excreted ammonia with no detritus share), on a model of its own.
+ */
+function formerSteadyState(scenario: Scenario, model: Model, p: Parameters, fish: readonly FishGroup[], loadMgNPerDay: number | undefined, kh0: number, field: string) {
+  const { load } = setFish(model, scenario, p, loadMgNPerDay === undefined ? massOfFish(fish, p, field) : 0);
+  return steadyAt(model, loadMgNPerDay ?? load, kh0, loadMgNPerDay === undefined ? field : 'start.loadMgNPerDay');
 }
 
 function steadyAt(model: Model, load: number, kh0: number, field: string) {
@@ -59,12 +70,11 @@ function steadyAt(model: Model, load: number, kh0: number, field: string) {
  * starved days leave unless the scenario's initialWater says otherwise).
  */
 export function describedStartState(scenario: Scenario, start: DescribedStart, zones: readonly ResolvedZone[], kh0: number, y: number[], p: Parameters): void {
-  const model = fishlessModel(scenario, zones, p);
+  const model = createModel(zones, scenario.tank.volumeL, p);
   const w = scenario.initialWater;
   const tap = scenario.tank.tapWater;
   if (start.kind === 'starved') {
-    const load = start.loadMgNPerDay ?? loadOfFish(scenario, start.formerFish ?? [], p, 'start.formerFish');
-    const ss = steadyAt(model, load, kh0, start.loadMgNPerDay === undefined ? 'start.formerFish' : 'start.loadMgNPerDay');
+    const ss = formerSteadyState(scenario, model, p, start.formerFish ?? [], start.loadMgNPerDay, kh0, 'start.formerFish');
     y[I_TAN] = ss.tan + tap.tanMgN;
     y[I_NO2] = ss.no2 + tap.no2MgN;
     y[I_NO3] = tap.no3MgN;
@@ -76,9 +86,15 @@ export function describedStartState(scenario: Scenario, start: DescribedStart, z
       y[noIndex(z)] = ss.capNo[z];
     });
     if (start.starvedDays > 0) {
+      setFish(model, scenario, p, 0);
       const opt = resolveOptions(scenario, { horizonDays: start.starvedDays });
       const run = createIntegrator({}, opt, model).integrate({ f: model.rhs, from: 0, to: start.starvedDays, y, times: [], first: 0, end: 0, sink: () => {} });
       if (!run.outcome.ok) throw optionError('start.starvedDays', `The starved days could not be solved: ${run.outcome.message}`);
+      // The solver may undershoot a population decayed to nothing by a rounding error: none is none.
+      zones.forEach((_, z) => {
+        y[aoIndex(z)] = Math.max(0, y[aoIndex(z)]);
+        y[noIndex(z)] = Math.max(0, y[noIndex(z)]);
+      });
     }
     // The day-0 water: what the keeper measured, else what the starved days left; KH as the tank says now.
     y[I_TAN] = w.tanMgN ?? y[I_TAN];
@@ -89,16 +105,16 @@ export function describedStartState(scenario: Scenario, start: DescribedStart, z
     y[I_PLANT] = 0;
     return;
   }
-  // Seeded: the filter zones hold their share of a mature filter's capacity; the rest start as a new tank's.
-  const load = start.loadMgNPerDay ?? (scenario.fish.length > 0 ? loadOfFish(scenario, scenario.fish, p, 'fish') : loadOfFish(scenario, addedFish(scenario), p, 'events'));
-  const ss = steadyAt(model, load, kh0, start.loadMgNPerDay === undefined ? 'fish' : 'start.loadMgNPerDay');
+  // Seeded: the filter zones hold their share of a mature filter's capacity at the load (the
+  // fish at day 0, else those the scenario adds); the other zones start as a new tank's.
+  const fish = scenario.fish.length > 0 ? scenario.fish : addedFish(scenario);
+  const ss = formerSteadyState(scenario, model, p, fish, start.loadMgNPerDay, kh0, scenario.fish.length > 0 ? 'fish' : 'events');
   const act = model.current;
   const totalArea = zones.reduce((s, z) => s + z.areaM2, 0);
   zones.forEach((zone, z) => {
-    const inoculumAo = (p.inoculum * scenario.tank.volumeL * (zone.areaM2 / totalArea)) / act.activityAo;
-    const inoculumNo = (p.inoculum * scenario.tank.volumeL * (zone.areaM2 / totalArea)) / act.activityNo;
+    const inoculum = p.inoculum * scenario.tank.volumeL * (zone.areaM2 / totalArea);
     const seeded = zone.kind === 'filter';
-    y[aoIndex(z)] = Math.max(inoculumAo, seeded ? start.share * ss.capAo[z] : 0);
-    y[noIndex(z)] = Math.max(inoculumNo, seeded ? start.share * ss.capNo[z] : 0);
+    y[aoIndex(z)] = Math.max(inoculum / act.activityAo, seeded ? start.share * ss.capAo[z] : 0);
+    y[noIndex(z)] = Math.max(inoculum / act.activityNo, seeded ? start.share * ss.capNo[z] : 0);
   });
 }
