@@ -4,11 +4,11 @@
  * screen, the printable plan and the server's explanation.
  */
 import { findSpecies } from '../simulation/catalogue';
-import { formatFigure } from '../simulation/format-number';
 import { formatNitrogen, nitrogenUnit } from './nitrogen-format';
 import type { NitrogenBasis } from './schemas/preferences';
 import type { StartState, StartWarning } from './schemas/start-state';
 import type { TankHistory } from './schemas/tank-history';
+import { TEST_START_MAX_DAYS } from './tank-start';
 
 const DAY_FORMAT = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', timeZone: 'UTC' });
 /** "3 Dec" (UTC, as the rule counts days). */
@@ -64,10 +64,12 @@ export function startLine(state: StartState, basis: NitrogenBasis): string {
   return state.test?.used ? `From your test of ${startDay(state.test.takenAt)}: ${testValues(state.test, basis)}, ${words.afterTest}.` : words.alone;
 }
 
-function warningLine(w: StartWarning, basis: NitrogenBasis): string {
+const startOn = (state: StartState) => (state.startDate ? ` (${startDay(state.startDate)})` : '');
+
+function warningLine(w: StartWarning, state: StartState, basis: NitrogenBasis): string {
   switch (w.kind) {
     case 'test-old':
-      return `Your latest test (${startDay(w.takenAt)}) is ${formatFigure(w.daysBefore)} days before this forecast starts, too old to start from: test the water on the start day and the forecast starts from it.`;
+      return `Your latest test (${startDay(w.takenAt)}) was taken more than ${TEST_START_MAX_DAYS} days before this forecast starts${startOn(state)}, too old to start from: test the water on the start day and the forecast starts from it.`;
     case 'test-contradicts-settled':
       return `Your test of ${startDay(w.takenAt)} shows ${testValues(w, basis)}, which a settled tank does not read: its nitrifiers may be fewer than assumed. Describe the tank's past on the tank page, or fit the model to your tests.`;
     case 'fit-other-zones':
@@ -77,5 +79,5 @@ function warningLine(w: StartWarning, basis: NitrogenBasis): string {
 
 /** The start's warnings, one line each (none when the evidence agrees). */
 export function startWarningLines(state: StartState, basis: NitrogenBasis): string[] {
-  return state.warnings.map((w) => warningLine(w, basis));
+  return state.warnings.map((w) => warningLine(w, state, basis));
 }

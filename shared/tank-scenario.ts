@@ -30,6 +30,8 @@ export interface TankScenarioOptions {
    * tank's tests and fit are not used (its description and the default still are).
    */
   startDate?: string;
+  /** 'description': the keeper's account or the default only, no test or fit (a fit's prior); default 'all'. */
+  evidence?: 'all' | 'description';
   /** Forecast length; default from `defaultHorizonDays`. */
   horizonDays?: number;
 }
@@ -113,8 +115,8 @@ export function tankScenario(tank: ScenarioTank, plan: ScenarioPlan = { events: 
   if (!(tank.volumeL > 0)) throw new ScenarioError({ volumeL: 'Volume must be above 0 L.' });
   const { zones, aeration } = zonesForSetup(tank);
   const evidence = options.start
-    ? { start: options.start, initialWater: {}, state: { reason: 'given' as const, test: null, fittedAt: null, history: tank.history ?? null, warnings: [] } }
-    : startEvidence(options.startDate ? tank : { ...tank, readings: tank.readings.map(() => null), fit: null }, zones, options.startDate ?? '1970-01-01');
+    ? { start: options.start, initialWater: {}, state: { reason: 'given' as const, startDate: options.startDate ?? null, test: null, fittedAt: null, history: tank.history ?? null, warnings: [] } }
+    : startEvidence(tank, zones, options.startDate ?? null, options.evidence ?? 'all');
   const scenario: ScenarioInput = {
     ...(plan.name ? { name: plan.name } : {}),
     tank: {

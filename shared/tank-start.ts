@@ -84,7 +84,7 @@ export function startFor(tank: Pick<EvidenceTank, 'livestock' | 'readings'>): { 
 }
 
 /** The nitrifiers as the keeper describes the tank's past. */
-function describedStart(history: TankHistory, startDate: string): { start: Start; reason: StartReason } {
+function describedStart(history: TankHistory, startDate: string | null): { start: Start; reason: StartReason } {
   switch (history.kind) {
     case 'settled':
       return { start: { kind: 'mature' }, reason: 'described-settled' };
@@ -93,7 +93,8 @@ function describedStart(history: TankHistory, startDate: string): { start: Start
     case 'seeded':
       return { start: { kind: 'seeded', share: history.sharePercent / 100 }, reason: 'described-seeded' };
     case 'emptied': {
-      const starvedDays = Math.max(0, daysBetween(history.matureUntil, startDate));
+      // Without a day 0 (a check of the events only) the filter is taken as it was on its last mature day.
+      const starvedDays = startDate === null ? 0 : Math.max(0, daysBetween(history.matureUntil, startDate));
       const formerFish = history.formerFish.map((f) => ({ species: f.speciesId, count: f.count }));
       // Fish back in at day 0 (a restock) leave the starved days as they were: the filter had none then.
       return { start: { kind: 'starved', formerFish, starvedDays }, reason: 'described-emptied' };
@@ -110,15 +111,18 @@ function contradictsSettled(test: StartReading, tank: EvidenceTank): boolean {
 /**
  * The start of a forecast of `tank` whose day 0 is `startDate` (YYYY-MM-DD): see the file
  * comment for the order. `zones` are the tank's zones now (a fit on other zones is not used).
+ * With `use` 'description' (or no start date) no test or fit is read: the keeper's account or
+ * the default alone, as the prior a new fit starts from.
  */
-export function startEvidence(tank: EvidenceTank, zones: readonly Pick<Zone, 'id'>[], startDate: string): StartEvidence {
+export function startEvidence(tank: EvidenceTank, zones: readonly Pick<Zone, 'id'>[], startDate: string | null, use: 'all' | 'description' = 'all'): StartEvidence {
   const warnings: StartWarning[] = [];
-  const test = startTest(tank.readings, startDate);
+  const evidence = use === 'all' && startDate !== null;
+  const test = evidence ? startTest(tank.readings, startDate) : null;
 
   let chosen: { start: Start; reason: StartReason };
   let fitUsed: string | null = null;
   const ids = new Set(zones.map((z) => z.id));
-  const fit = tank.fit ?? null;
+  const fit = evidence ? (tank.fit ?? null) : null;
   if (fit && fit.capacities.length > 0 && fit.capacities.every((c) => ids.has(c.zoneId))) {
     chosen = { start: { kind: 'explicit', capacities: fit.capacities.map((c) => ({ zoneId: c.zoneId, aoMgNPerDay: c.aoMgNPerDay, noMgNPerDay: c.noMgNPerDay })) }, reason: 'fitted' };
     fitUsed = fit.fittedAt;
@@ -149,6 +153,7 @@ export function startEvidence(tank: EvidenceTank, zones: readonly Pick<Zone, 'id
     initialWater,
     state: {
       reason: chosen.reason,
+      startDate,
       test,
       fittedAt: fitUsed,
       history: tank.history ?? null,

@@ -50,12 +50,13 @@ async function planOf(ds: DataSource, tank: Tank, planId: string | undefined, no
 
 /**
  * The tank's scenario running `events`. With `startDate` it starts from the tank's evidence
- * on that day (latest test, applied fit: shared/tank-start.ts); without, from its description
- * or the default (the calibration's prior, which the fit replaces).
+ * on that day (latest test, applied fit: shared/tank-start.ts); with `evidence: 'description'`
+ * from its description or the default only (the calibration's prior, which the fit replaces).
  */
-async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number; startDate?: string } = {}): Promise<Scenario> {
+async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number; startDate?: string; evidence?: 'all' | 'description' } = {}): Promise<Scenario> {
+  const readsEvidence = !options.start && options.evidence !== 'description';
   try {
-    return parseScenario(tankScenario(await scenarioTankOf(ds, tank, options.start ? undefined : options.startDate), { events }, options).scenario);
+    return parseScenario(tankScenario(await scenarioTankOf(ds, tank, readsEvidence ? options.startDate : undefined), { events }, options).scenario);
   } catch (e) {
     if (e instanceof ScenarioError) throw validationFailed(e.fields);
     throw e;
@@ -117,7 +118,8 @@ export async function calibrationAdvice(ds: DataSource, db: Db, tank: Tank, body
     ...(r.no2MgN !== null ? { no2MgN: Math.min(r.no2MgN, 100) } : {}),
   }));
   const lastDay = readings.at(-1)!.day;
-  const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1) });
+  // The prior: the tank as described (or by default) on the day of the first test; the fit replaces any fit applied before.
+  const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1), startDate: rows[0].takenAt.toISOString().slice(0, 10), evidence: 'description' });
   const { sinceDays: _since, ...options } = body;
   const { value } = await runEngine({ kind: 'calibration', request: { ...options, scenario, readings } }, caller);
   const result = calibrationResponseSchema.parse(value);

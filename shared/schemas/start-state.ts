@@ -41,6 +41,8 @@ export type StartWarning = z.infer<typeof startWarningSchema>;
 
 export const startStateSchema = z.object({
   reason: z.enum(START_REASONS),
+  /** the forecast's day 0 (YYYY-MM-DD; null when no date was given and tests were not read) */
+  startDate: z.string().nullable(),
   test: startTestSchema.nullable(),
   /** when the applied fit the nitrifiers come from ran (null: no fit used) */
   fittedAt: z.string().nullable(),
