@@ -4,7 +4,7 @@ import type { z } from 'zod';
 import { useTheme } from '@/hooks/use-theme';
 import { useAdditionAdvice, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
 import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
-import { isApiRequestError } from '@/lib/api-client';
+import { requestErrorLine } from '@/lib/form-errors';
 import { parseDecimal } from '@/lib/units-format';
 import { plainNumber } from '@/shared/forecast-view';
 import type { ScenarioEvent } from '@/simulation/scenario';
@@ -43,11 +43,6 @@ export function plannedAddition(events: readonly ScenarioEvent[]) {
   const first = adds[0].fish;
   const same = adds.filter((e) => e.fish.species === first.species && e.fish.name === first.name);
   return { ...first, count: same.reduce((n, e) => n + e.fish.count, 0) };
-}
-
-function errorText(e: unknown): string {
-  if (isApiRequestError(e)) return Object.values(e.fields)[0] ?? e.message;
-  return 'Something went wrong. Try again.';
 }
 
 function Words({ lines, testID }: { lines: readonly string[]; testID?: string }) {
@@ -105,7 +100,7 @@ function AdditionAdvice({ tank, planId, events, onApplySchedule }: AdvicePanelPr
         onPress={() => advice.mutate({ planId, fish, searchDays: 60 })}
         testID="advice-addition-run"
       />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} testID="advice-error" /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} testID="advice-error" /> : null}
       {data ? (
         <View testID="advice-addition-result" style={{ gap: space.md }}>
           <Heading level={3}>
@@ -180,7 +175,7 @@ function RemovalAdvice({ tank, planId }: AdvicePanelProps) {
       <TextField label="Restock on day" value={restock} onChangeText={setRestock} keyboardType="number-pad" error={errors.restock} testID="removal-restock" />
       <TextField label="Your ammonia solution (% NH3)" hint="Optional: for a dose in mL" value={percent} onChangeText={setPercent} keyboardType="decimal-pad" error={errors.percent} testID="removal-percent" />
       <Button label="Work out the dose" busy={advice.isPending} busyLabel="Working it out…" onPress={run} testID="advice-removal-run" />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} /> : null}
       {data ? (
         <View testID="advice-removal-result" style={{ gap: space.sm }}>
           <Heading level={3}>{data.dose.mgNPerLPerDay > 0 ? 'Dose ammonia daily until the restock' : 'No dosing needed'}</Heading>
@@ -208,7 +203,7 @@ function RescueAdvice({ tank, planId }: AdvicePanelProps) {
     <Section testID="advice-rescue">
       <AppText>If the saved plan's forecast spikes, which water changes keep it under the limits?</AppText>
       <Button label="Find rescue water changes" busy={advice.isPending} busyLabel="Working it out…" onPress={() => advice.mutate({ planId })} testID="advice-rescue-run" />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} /> : null}
       {data ? (
         <View testID="advice-rescue-result" style={{ gap: space.sm }}>
           <Heading level={3}>{data.status === 'no-changes-needed' ? 'No extra water changes needed' : data.status === 'rescued' ? 'These water changes keep it under' : 'Water changes alone cannot keep it under'}</Heading>
@@ -239,7 +234,7 @@ function CapacityTest({ tank }: AdvicePanelProps) {
     <Section testID="advice-capacity-test">
       <AppText>No test history? A guided test measures how much ammonia the biofilter clears in a day.</AppText>
       <Button label="Show the test" busy={test.isPending} busyLabel="Preparing…" onPress={() => test.mutate({})} testID="advice-capacity-run" />
-      {test.isError ? <Banner tone="danger" title="Could not prepare the test" message={errorText(test.error)} /> : null}
+      {test.isError ? <Banner tone="danger" title="Could not prepare the test" message={requestErrorLine(test.error)} /> : null}
       {data ? (
         <View testID="advice-capacity-result" style={{ gap: space.sm }}>
           <Heading level={3}>{`Dose ${plainNumber(data.protocol.doseMgNPerL)} mg N/L, test at hours ${data.protocol.readingHours.join(', ')}`}</Heading>

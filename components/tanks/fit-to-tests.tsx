@@ -1,7 +1,7 @@
 import { View } from 'react-native';
 import { useTheme } from '@/hooks/use-theme';
 import { useApplyFit, useCalibration, useClearFit } from '@/hooks/use-tank-fit';
-import { isApiRequestError } from '@/lib/api-client';
+import { requestErrorLine } from '@/lib/form-errors';
 import { fitWindowWords, fittingLabel } from '@/lib/calibration-progress';
 import { shortDate } from '@/lib/format';
 import { plainNumber } from '@/shared/forecast-view';
@@ -10,11 +10,6 @@ import { AppText, Heading } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
 import { CautionsList } from '@/components/forecast/cautions-list';
-
-function errorText(e: unknown): string {
-  if (isApiRequestError(e)) return Object.values(e.fields)[0] ?? e.message;
-  return 'Something went wrong. Try again.';
-}
 
 /**
  * "Fit to my tests" on the tank page and the plan page: runs the fit on the tank's own tests,
@@ -48,7 +43,7 @@ export function FitToTests({ tank }: { tank: TankDetail }) {
           Trying filter strengths and growth speeds against your readings…
         </AppText>
       ) : null}
-      {fit.isError ? <Banner tone="danger" title="Could not fit" message={errorText(fit.error)} testID="calibration-error" /> : null}
+      {fit.isError ? <Banner tone="danger" title="Could not fit" message={requestErrorLine(fit.error)} testID="calibration-error" /> : null}
       {data ? (
         <View testID="advice-calibration-result" style={{ gap: space.sm }}>
           <Heading level={3}>{`Fit: ${data.quality.verdict} (${data.readingsUsed} tests)`}</Heading>
@@ -69,7 +64,7 @@ export function FitToTests({ tank }: { tank: TankDetail }) {
           ) : (
             <Button label="Use this fit for every forecast" busy={apply.isPending} busyLabel="Applying…" onPress={() => apply.mutate(data.fit.id)} testID="fit-apply" />
           )}
-          {apply.isError ? <Banner tone="danger" title="Not applied" message={errorText(apply.error)} testID="fit-apply-error" /> : null}
+          {apply.isError ? <Banner tone="danger" title="Not applied" message={requestErrorLine(apply.error)} testID="fit-apply-error" /> : null}
           <CautionsList extra={data.cautions} />
         </View>
       ) : null}
