@@ -54,7 +54,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a forecast starts from 
     // The chart starts at the test: its ammonia peak is at least the logged 2 mg/L as N (more as the ion).
     const peak = Number((await page.getByTestId('forecast-peak-tan').innerText()).match(/Peak ([\d.]+)/)![1]);
     expect(peak).toBeGreaterThanOrEqual(2);
-    await page.getByTestId('plan-forecast').scrollIntoViewIfNeeded();
+    await page.getByTestId('forecast-start-warnings').scrollIntoViewIfNeeded();
     await screenshot(page, `tank-start-plan-${size}`);
     await context.close();
   }, 90_000);
