@@ -32,15 +32,20 @@ export interface PlanScenario {
  */
 export async function planScenario(ds: DataSource, own: OwnPlan, events: readonly ScenarioEvent[] = own.plan.events): Promise<PlanScenario> {
   try {
-    const tank = await scenarioTankOf(ds, own.tank, own.plan.startDate);
-    const plan = { name: own.plan.name, events };
-    const built = tankScenario(tank, plan, { startDate: own.plan.startDate });
-    const compareStart = built.startReason === 'fitted' ? tankScenario({ ...tank, fit: null }, plan, { startDate: own.plan.startDate }).start : null;
-    return { scenario: parseScenario(built.scenario), startReason: built.startReason, startState: built.startState, compareStart };
+    return await planScenarioOrThrow(ds, own, events);
   } catch (e) {
     if (e instanceof ScenarioError) throw validationFailed(e.fields);
     throw e;
   }
+}
+
+/** The same, throwing the engine's ScenarioError (its message names the fields) for callers that log it. */
+export async function planScenarioOrThrow(ds: DataSource, own: OwnPlan, events: readonly ScenarioEvent[] = own.plan.events): Promise<PlanScenario> {
+  const tank = await scenarioTankOf(ds, own.tank, own.plan.startDate);
+  const plan = { name: own.plan.name, events };
+  const built = tankScenario(tank, plan, { startDate: own.plan.startDate });
+  const compareStart = built.startReason === 'fitted' ? tankScenario({ ...tank, fit: null }, plan, { startDate: own.plan.startDate }).start : null;
+  return { scenario: parseScenario(built.scenario), startReason: built.startReason, startState: built.startState, compareStart };
 }
 
 /** Cautions for a plan: always the estimate ones; dosing, rehoming and water changes when it has them. */
