@@ -123,7 +123,9 @@ export function startEvidence(tank: EvidenceTank, zones: readonly Pick<Zone, 'id
   let fitUsed: string | null = null;
   const ids = new Set(zones.map((z) => z.id));
   const fit = evidence ? (tank.fit ?? null) : null;
-  if (fit && fit.capacities.length > 0 && fit.capacities.every((c) => ids.has(c.zoneId))) {
+  // The fitted zones must be the tank's zones now: a zone left out of an explicit start would hold no nitrifiers at all.
+  const fitted = new Set(fit?.capacities.map((c) => c.zoneId) ?? []);
+  if (fit && fitted.size === ids.size && [...ids].every((id) => fitted.has(id))) {
     chosen = { start: { kind: 'explicit', capacities: fit.capacities.map((c) => ({ zoneId: c.zoneId, aoMgNPerDay: c.aoMgNPerDay, noMgNPerDay: c.noMgNPerDay })) }, reason: 'fitted' };
     fitUsed = fit.fittedAt;
   } else {

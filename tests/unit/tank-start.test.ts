@@ -8,7 +8,13 @@ const ZONES = [{ id: 'filter' }, { id: 'substrate' }];
 const START = '2026-12-03';
 const at = (iso: string) => `${iso}`;
 const test = (takenAt: string, tanMgN: number | null, no2MgN: number | null = 0, no3MgN: number | null = 5) => ({ takenAt: at(takenAt), tanMgN, no2MgN, no3MgN });
-const FIT = { fittedAt: '2026-12-01T09:00:00.000Z', capacities: [{ zoneId: 'filter', aoMgNPerDay: 300, noMgNPerDay: 250 }] };
+const FIT = {
+  fittedAt: '2026-12-01T09:00:00.000Z',
+  capacities: [
+    { zoneId: 'filter', aoMgNPerDay: 300, noMgNPerDay: 250 },
+    { zoneId: 'substrate', aoMgNPerDay: 20, noMgNPerDay: 15 },
+  ],
+};
 
 function tank(over: Partial<EvidenceTank> = {}): EvidenceTank {
   return { ph: 7.2, temperatureC: 25, livestock: [{ count: 12 }], readings: [], history: null, fit: null, ...over };
@@ -47,10 +53,12 @@ describe('startEvidence: test, then fit, then the keeper\'s account, then the de
     expect(startEvidence(tank({ livestock: [] }), ZONES, START).state.reason).toBe('new-unseeded');
   });
 
-  it('does not use a fit made on zones the tank no longer has, and says so', () => {
-    const e = startEvidence(tank({ fit: { ...FIT, capacities: [{ zoneId: 'sump', aoMgNPerDay: 1, noMgNPerDay: 1 }] } }), ZONES, START);
-    expect(e.state.reason).toBe('mature-present-load');
-    expect(e.state.warnings).toEqual([{ kind: 'fit-other-zones', fittedAt: FIT.fittedAt }]);
+  it('does not use a fit made on other zones than the tank has now (one more, one fewer), and says so', () => {
+    for (const capacities of [[...FIT.capacities, { zoneId: 'sump', aoMgNPerDay: 1, noMgNPerDay: 1 }], FIT.capacities.slice(0, 1)]) {
+      const e = startEvidence(tank({ fit: { ...FIT, capacities } }), ZONES, START);
+      expect(e.state.reason).toBe('mature-present-load');
+      expect(e.state.warnings).toEqual([{ kind: 'fit-other-zones', fittedAt: FIT.fittedAt }]);
+    }
   });
 
   it('warns when the latest test is too old, and starts without it', () => {
