@@ -7,6 +7,7 @@ import { planCheckDays } from '@/shared/plan-check-days';
 import { usePlan, usePlanForecast, useUpdatePlan } from '@/hooks/use-plans';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { useLiveForecast } from '@/hooks/use-forecast';
+import { planForecastVersion } from '@/lib/query-keys';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
@@ -51,11 +52,6 @@ export function scenarioTankOf(tank: TankDetail): ScenarioTank {
   };
 }
 
-/** What the start rule reads of the tank: a new test, fit or description means a new saved forecast. */
-export function evidenceVersion(tank: TankDetail): string {
-  return [tank.readings[0]?.id ?? '', tank.readings[0]?.takenAt ?? '', tank.fit?.id ?? '', JSON.stringify(tank.history)].join('|');
-}
-
 /** Index of the add-fish event the slider moves: the selected one, else the first. */
 function sliderTarget(events: readonly ScenarioEvent[], selected: number | null): number {
   if (selected !== null && events[selected]?.type === 'add-fish') return selected;
@@ -88,7 +84,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const prefs = usePreferences();
   const saved = usePlan(planId).data!;
   const save = useUpdatePlan(planId);
-  const server = usePlanForecast(planId, `${saved.updatedAt}|${evidenceVersion(tank)}`);
+  const server = usePlanForecast(planId, planForecastVersion(saved.updatedAt, tank));
 
   const draft = useDraftStore((s) => s.drafts[planId]);
   const selected = useDraftStore((s) => s.selected[planId] ?? null);

@@ -1,6 +1,7 @@
 import { useMemo } from 'react';
 import { View } from 'react-native';
 import { usePlan, usePlanForecast } from '@/hooks/use-plans';
+import { planForecastVersion } from '@/lib/query-keys';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
@@ -42,7 +43,7 @@ function PrintPage({ id }: { id: string }) {
   const { space } = useTheme();
   const plan = usePlan(id);
   const tank = useTankDetail(plan.data?.tankId ?? '');
-  const forecast = usePlanForecast(id, plan.data?.updatedAt);
+  const forecast = usePlanForecast(id, plan.data && tank.data ? planForecastVersion(plan.data.updatedAt, tank.data) : undefined);
   const prefs = usePreferences();
   return (
     <Screen testID="screen-print-plan" title={plan.data ? `Print: ${plan.data.name}` : 'Printable plan'}>
