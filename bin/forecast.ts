@@ -28,6 +28,8 @@ simulation/scenario.ts for every field, default and limit):
                       areaM2 | media: {type, volumeL}, flow?, oxygen?, light? }]
   start:    {kind:"new", inoculumMgNPerLPerDay?} | {kind:"mature", loadMgNPerDay?}
             | {kind:"explicit", capacities:[{zoneId, aoMgNPerDay, noMgNPerDay}]}
+            | {kind:"starved", formerFish:[fish] | loadMgNPerDay, starvedDays}  (mature, then no fish)
+            | {kind:"seeded", share 0–1, loadMgNPerDay?}  (new tank, filter with mature media)
   initialWater?: {tanMgN?, no2MgN?, no3MgN?, orgMgN?}
   fish?:    [{species? (catalogue id) | name, count, lengthCm?, shape?, massG?}]
   feeding?: {mode:"body-mass", percentPerDay?, proteinShare?} | {mode:"grams", gramsPerDay, proteinShare?}

@@ -2,7 +2,6 @@ import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api-client';
 import { planKeys, tankKeys } from '@/lib/query-keys';
 import {
-  calibrationAdviceResponseSchema,
   capacityTestResponseSchema,
   planDetailSchema,
   planForecastResponseSchema,
@@ -12,7 +11,7 @@ import {
 } from '@/shared/schemas/plan';
 import { additionResponseSchema, removalResponseSchema, rescueResponseSchema } from '@/simulation/advice/schemas';
 import type { z } from 'zod';
-import type { additionAdviceBodySchema, calibrationBodySchema, capacityTestBodySchema, removalAdviceBodySchema, rescueAdviceBodySchema } from '@/shared/schemas/plan';
+import type { additionAdviceBodySchema, capacityTestBodySchema, removalAdviceBodySchema, rescueAdviceBodySchema } from '@/shared/schemas/plan';
 
 /** Plans change only through this app: a minute is fresh enough. */
 export const PLAN_STALE_MS = 60_000;
@@ -95,13 +94,6 @@ export function useRescueAdvice(tankId: string) {
   return useMutation({
     mutationFn: (body: z.input<typeof rescueAdviceBodySchema>) =>
       apiRequest(`${tankUrl(tankId)}/advice/rescue`, { method: 'POST', body, schema: rescueResponseSchema }),
-  });
-}
-
-export function useCalibration(tankId: string) {
-  return useMutation({
-    mutationFn: (body: z.input<typeof calibrationBodySchema>) =>
-      apiRequest(`${tankUrl(tankId)}/calibration`, { method: 'POST', body, schema: calibrationAdviceResponseSchema }),
   });
 }
 

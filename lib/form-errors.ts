@@ -44,3 +44,9 @@ export function formErrorsFromRequest(error: unknown, formFields: readonly strin
     Object.keys(fields).length === 0 ? [error.message, ...others].join(' ') : others.length ? others.join(' ') : null;
   return { fields, banner };
 }
+
+/** One line for a failed request shown outside a form: the first field message, else the answer's message. */
+export function requestErrorLine(e: unknown): string {
+  if (e instanceof ApiRequestError) return Object.values(e.fields)[0] ?? e.message;
+  return 'Something went wrong. Try again.';
+}

@@ -1,3 +1,5 @@
+import type { TankDetail } from '@/shared/schemas/tank';
+
 /** Query-key factories, one per resource, so invalidation never guesses at key shapes. */
 export const sessionKeys = {
   all: ['session'] as const,
@@ -22,6 +24,15 @@ export const devKeys = {
   all: ['dev'] as const,
   outbox: () => [...devKeys.all, 'outbox'] as const,
 };
+
+/**
+ * The version a saved plan's forecast is cached under: the plan's own version and what its
+ * start reads of the tank (latest test, applied fit, the keeper's account: shared/tank-start.ts),
+ * so a new test, fit or account asks the server again.
+ */
+export function planForecastVersion(planUpdatedAt: string, tank: Pick<TankDetail, 'readings' | 'fit' | 'history'>): string {
+  return [planUpdatedAt, tank.readings[0]?.id ?? '', tank.readings[0]?.takenAt ?? '', tank.fit?.id ?? '', JSON.stringify(tank.history)].join('|');
+}
 
 export const planKeys = {
   all: ['plans'] as const,

@@ -34,12 +34,8 @@ export function formatTemperature(celsius: number, unit: TemperatureUnit): strin
   return `${formatTemperatureFigure(temperatureIn(celsius, unit))} ${TEMPERATURE_UNIT_LABEL[unit]}`;
 }
 
-/** Short unit of a nitrogen value: "mg/L as N", or the ion ("mg/L NH4+", "mg/L NO2−", "mg/L NO3−"). */
-export function nitrogenUnit(key: NitrogenKey, basis: NitrogenBasis): string {
-  if (basis === 'N') return 'mg/L as N';
-  const ion = { NH4: 'NH4+', NO2: 'NO2−', NO3: 'NO3−' }[ION_OF[key]];
-  return `mg/L ${ion}`;
-}
+/** "mg/L as N" or the ion's unit, and a stored value in the basis: shared with the server's words. */
+export { formatNitrogen, nitrogenUnit } from '@/shared/nitrogen-format';
 
 /** The basis in words, for captions: "as N" or "as the ion (NH4+, NO2−, NO3−)". */
 export function basisWords(basis: NitrogenBasis): string {
@@ -51,10 +47,6 @@ export function nitrogenIn(mgN: number, key: NitrogenKey, basis: NitrogenBasis):
   return fromMgN(mgN, key, basis);
 }
 
-/** A stored mg N/L value for display in the basis (kit-style rounding, "—" for not tested). */
-export function formatNitrogen(mgN: number | null, key: NitrogenKey, basis: NitrogenBasis): string {
-  return mgN === null ? formatMgPerL(null) : formatMgPerL(fromMgN(mgN, key, basis));
-}
 
 /**
  * What a person typed as a number: decimal comma or dot, surrounding spaces allowed. Empty →

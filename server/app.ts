@@ -18,6 +18,7 @@ import { meRouter } from './routes/me.js';
 import { preferencesRouter } from './routes/preferences.js';
 import { tanksRouter } from './routes/tanks.js';
 import { adviceRouter } from './routes/advice.js';
+import { tankFitsRouter } from './routes/tank-fits.js';
 import { forecastsRouter } from './routes/forecasts.js';
 import { plansRouter } from './routes/plans.js';
 import { configureEnginePool } from './workers/engine-pool.js';
@@ -79,7 +80,7 @@ export function createApp(
   api.use('/me/preferences', preferencesRouter(deps));
   api.use('/me', meRouter(deps));
   // Plans, forecasts and advice: /tanks/:tankId/plans|advice/*|ensemble|calibration|capacity-test and /plans/*.
-  api.use(plansRouter(deps), forecastsRouter(deps), adviceRouter(deps));
+  api.use(plansRouter(deps), forecastsRouter(deps), adviceRouter(deps), tankFitsRouter(deps));
   api.use('/tanks', tanksRouter(deps));
   api.use('/clubs/:clubId/lessons', clubLessonsRouter(deps));
   api.use('/clubs/:clubId/shares/:shareId/comments', commentsRouter(deps));

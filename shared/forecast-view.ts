@@ -70,13 +70,6 @@ import { formatFigure as plainNumber } from '../simulation/format-number';
 const dayWord = (d: number) => `day ${Math.round(d)}`;
 const daysWord = (d: number) => (Math.round(d) === 1 ? '1 day' : `${plainNumber(d)} days`);
 
-export const START_SENTENCES: Record<'given' | 'mature-present-load' | 'new-unseeded' | 'new-no-fish', string> = {
-  given: 'Starts from the state you chose for the tank.',
-  'mature-present-load': 'Starts as a settled tank: its nitrifiers match the fish it holds now.',
-  'new-unseeded': 'Starts as a new tank with hardly any nitrifiers (no fish and no water tests yet).',
-  'new-no-fish': 'Starts with hardly any nitrifiers: the tank holds no fish, so nothing is known to have fed its biofilter.',
-};
-
 /** The four limits a forecast is checked against, in the order they are reported. */
 export const FORECAST_LIMIT_KEYS = ['freeNh3', 'tanChronic', 'tanAcute', 'no2'] as const;
 export type ForecastLimitKey = (typeof FORECAST_LIMIT_KEYS)[number];

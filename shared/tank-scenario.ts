@@ -7,12 +7,16 @@ import { zonesFromDescription } from '../simulation/presets';
 import { doseSpanDays } from '../simulation/timeline';
 import { ScenarioError, type AerationLevel, type FishGroup, type ScenarioEvent, type ScenarioInput, type Start, type Zone } from '../simulation/scenario';
 import { TANK_DEFAULTS, type LivestockItem, type RoutineWaterChange, type TankDetail, type TankSetup } from './schemas/tank';
+import { startEvidence, startFor, type EvidenceTank, type StartReading, type StartReason, type StartState } from './tank-start';
+
+export { startFor, type StartReason, type StartState } from './tank-start';
 
 /** The parts of a stored tank a scenario needs. */
-export type ScenarioTank = Pick<TankDetail, 'volumeL' | 'temperatureC' | 'ph' | 'khDkh' | 'tapWater' | 'setup' | 'livestock'> & {
-  /** Only the count matters: any logged test means the tank has a history. */
-  readings: readonly unknown[];
-};
+export type ScenarioTank = Pick<TankDetail, 'volumeL' | 'temperatureC' | 'ph' | 'khDkh' | 'tapWater' | 'setup' | 'livestock'> &
+  Pick<EvidenceTank, 'history' | 'fit'> & {
+    /** Newest first; the latest up to the start day may give the day-0 water (shared/tank-start.ts), and any test at all means the tank has a history. */
+    readings: readonly (StartReading | null)[];
+  };
 
 export interface ScenarioPlan {
   name?: string;
@@ -20,19 +24,26 @@ export interface ScenarioPlan {
 }
 
 export interface TankScenarioOptions {
-  /** How the tank starts; default from `startFor` (fish → mature at present load, else new). */
+  /** How the tank starts, overriding the evidence; default from `startEvidence` (shared/tank-start.ts). */
   start?: Start;
+  /**
+   * The forecast's day 0 (YYYY-MM-DD: the plan's start date, or today). Without it the
+   * tank's tests and fit are not used (its description and the default still are).
+   */
+  startDate?: string;
+  /** 'description': the keeper's account or the default only, no test or fit (a fit's prior); default 'all'. */
+  evidence?: 'all' | 'description';
   /** Forecast length; default from `defaultHorizonDays`. */
   horizonDays?: number;
 }
-
-export type StartReason = 'given' | 'mature-present-load' | 'new-unseeded' | 'new-no-fish';
 
 export interface TankScenario {
   scenario: ScenarioInput;
   start: Start;
   /** Why this start state was chosen (for the plain-words line above a forecast). */
   startReason: StartReason;
+  /** What the start came from, with its warnings (worded by shared/start-words.ts). */
+  startState: StartState;
 }
 
 /** Days of forecast after the last event, so its spike and recovery fit (common practice: 3 weeks). */
@@ -55,18 +66,6 @@ export function lastActionDay(event: ScenarioEvent): number {
 export function defaultHorizonDays(events: readonly ScenarioEvent[]): number {
   const last = events.reduce((m, e) => Math.max(m, lastActionDay(e)), 0);
   return Math.min(MAX_HORIZON_DAYS, Math.max(MIN_HORIZON_DAYS, Math.ceil(last) + DAYS_AFTER_LAST_EVENT));
-}
-
-/**
- * The start state of a stored tank: with fish it has been running and its nitrifiers match
- * its present load ("mature"); with no fish it is new and unseeded. An empty tank with a test
- * history is still started new: nothing says what fed its biofilter (the keeper can calibrate
- * or pass an explicit start).
- */
-export function startFor(tank: Pick<ScenarioTank, 'livestock' | 'readings'>): { start: Start; startReason: StartReason } {
-  const fish = tank.livestock.reduce((n, l) => n + l.count, 0);
-  if (fish > 0) return { start: { kind: 'mature' }, startReason: 'mature-present-load' };
-  return { start: { kind: 'new' }, startReason: tank.readings.length > 0 ? 'new-no-fish' : 'new-unseeded' };
 }
 
 /** Fish present at day 0; a custom animal without a length has no load estimate, so it is refused by name. */
@@ -116,8 +115,10 @@ export function routineWaterChangeFor(setup: TankSetup): { routineWaterChange?: 
 /** The scenario of `tank` running `plan` (or no events), with its start state and why. */
 export function tankScenario(tank: ScenarioTank, plan: ScenarioPlan = { events: [] }, options: TankScenarioOptions = {}): TankScenario {
   if (!(tank.volumeL > 0)) throw new ScenarioError({ volumeL: 'Volume must be above 0 L.' });
-  const chosen = options.start ? { start: options.start, startReason: 'given' as const } : startFor(tank);
   const { zones, aeration } = zonesForSetup(tank);
+  const evidence = options.start
+    ? { start: options.start, initialWater: {}, state: { reason: 'given' as const, startDate: options.startDate ?? null, test: null, fittedAt: null, history: tank.history ?? null, warnings: [] } }
+    : startEvidence(tank, zones, options.startDate ?? null, options.evidence ?? 'all');
   const scenario: ScenarioInput = {
     ...(plan.name ? { name: plan.name } : {}),
     tank: {
@@ -132,11 +133,12 @@ export function tankScenario(tank: ScenarioTank, plan: ScenarioPlan = { events: 
       plants: tank.setup.plants ?? 'none',
       ...routineWaterChangeFor(tank.setup),
     },
-    start: chosen.start,
+    start: evidence.start,
+    initialWater: evidence.initialWater,
     fish: fishFromLivestock(tank.livestock),
     feeding: { mode: 'body-mass' },
     events: plan.events.map((e) => JSON.parse(JSON.stringify(e)) as ScenarioEvent),
     horizonDays: options.horizonDays ?? defaultHorizonDays(plan.events),
   };
-  return { scenario, start: chosen.start, startReason: chosen.startReason };
+  return { scenario, start: evidence.start, startReason: evidence.state.reason, startState: evidence.state };
 }

@@ -240,6 +240,21 @@ export const startSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('new'), inoculumMgNPerLPerDay: z.number().gt(0).max(1).optional() }),
   /** A tank in steady state at a load (mg TAN-N/day); default: the starting fish and feeding. */
   z.object({ kind: z.literal('mature'), loadMgNPerDay: z.number().min(0).max(1e7).optional() }),
+  /**
+   * A filter that was mature at a load (mg TAN-N/day, or the fish that made it) and has had no
+   * fish for `starvedDays` before day 0 (an emptied tank): steady state, then starved.
+   */
+  z.object({
+    kind: z.literal('starved'),
+    loadMgNPerDay: z.number().min(0).max(1e7).optional(),
+    formerFish: z.array(fishGroupSchema).min(1).max(200).optional(),
+    starvedDays: z.number().min(0, 'Days count from 0.').max(3650, 'At most 10 years.'),
+  }),
+  /**
+   * A new tank seeded with mature media: its filter zones start with `share` of the capacity a
+   * mature filter carries at the load (default: the starting fish, else the fish the events add).
+   */
+  z.object({ kind: z.literal('seeded'), share: z.number().gt(0, 'Share must be above 0.').max(1, 'At most 1 (all of it).'), loadMgNPerDay: z.number().min(0).max(1e7).optional() }),
   /** Capacities (mg N/day at the tank temperature) given per zone, e.g. from calibration. */
   z.object({
     kind: z.literal('explicit'),
@@ -269,6 +284,9 @@ export const scenarioSchema = z
   })
   .superRefine((s, ctx) => {
     const ids = new Set(s.tank.zones.map((z) => z.id));
+    if (s.start.kind === 'starved' && (s.start.loadMgNPerDay === undefined) === (s.start.formerFish === undefined)) {
+      ctx.addIssue({ code: 'custom', message: 'Give the load the filter carried or the fish that made it (one of them).', path: ['start', 'formerFish'] });
+    }
     if (s.start.kind === 'explicit') {
       s.start.capacities.forEach((c, i) => {
         if (!ids.has(c.zoneId)) ctx.addIssue({ code: 'custom', message: `No zone "${c.zoneId}".`, path: ['start', 'capacities', i, 'zoneId'] });

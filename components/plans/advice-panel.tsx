@@ -2,11 +2,10 @@ import { useState, type ReactNode } from 'react';
 import { Pressable, View } from 'react-native';
 import type { z } from 'zod';
 import { useTheme } from '@/hooks/use-theme';
-import { useAdditionAdvice, useCalibration, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
+import { useAdditionAdvice, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
 import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
-import { isApiRequestError } from '@/lib/api-client';
+import { requestErrorLine } from '@/lib/form-errors';
 import { parseDecimal } from '@/lib/units-format';
-import { fitWindowWords, fittingLabel } from '@/lib/calibration-progress';
 import { plainNumber } from '@/shared/forecast-view';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
@@ -16,6 +15,7 @@ import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
 import { TextField } from '@/components/ui/text-field';
 import { CautionsList } from '@/components/forecast/cautions-list';
+import { FitToTests } from '@/components/tanks/fit-to-tests';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
 import { findSpecies } from '@/simulation/catalogue';
 
@@ -43,11 +43,6 @@ export function plannedAddition(events: readonly ScenarioEvent[]) {
   const first = adds[0].fish;
   const same = adds.filter((e) => e.fish.species === first.species && e.fish.name === first.name);
   return { ...first, count: same.reduce((n, e) => n + e.fish.count, 0) };
-}
-
-function errorText(e: unknown): string {
-  if (isApiRequestError(e)) return Object.values(e.fields)[0] ?? e.message;
-  return 'Something went wrong. Try again.';
 }
 
 function Words({ lines, testID }: { lines: readonly string[]; testID?: string }) {
@@ -105,7 +100,7 @@ function AdditionAdvice({ tank, planId, events, onApplySchedule }: AdvicePanelPr
         onPress={() => advice.mutate({ planId, fish, searchDays: 60 })}
         testID="advice-addition-run"
       />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} testID="advice-error" /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} testID="advice-error" /> : null}
       {data ? (
         <View testID="advice-addition-result" style={{ gap: space.md }}>
           <Heading level={3}>
@@ -199,7 +194,7 @@ function RemovalAdvice({ tank, planId }: AdvicePanelProps) {
       <TextField label="Restock on day" value={restock} onChangeText={setRestock} keyboardType="number-pad" error={errors.restock} testID="removal-restock" />
       <TextField label="Your ammonia solution (% NH3)" hint="Optional: for a dose in mL" value={percent} onChangeText={setPercent} keyboardType="decimal-pad" error={errors.percent} testID="removal-percent" />
       <Button label="Work out the dose" busy={advice.isPending} busyLabel="Working it out…" onPress={run} testID="advice-removal-run" />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} /> : null}
       {data ? (
         <View testID="advice-removal-result" style={{ gap: space.sm }}>
           <Heading level={3}>{removalHeading(data)}</Heading>
@@ -228,7 +223,7 @@ function RescueAdvice({ tank, planId }: AdvicePanelProps) {
     <Section testID="advice-rescue">
       <AppText>If the saved plan's forecast spikes, which water changes keep it under the limits?</AppText>
       <Button label="Find rescue water changes" busy={advice.isPending} busyLabel="Working it out…" onPress={() => advice.mutate({ planId })} testID="advice-rescue-run" />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={errorText(advice.error)} /> : null}
+      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} /> : null}
       {data ? (
         <View testID="advice-rescue-result" style={{ gap: space.sm }}>
           <Heading level={3}>{data.status === 'no-changes-needed' ? 'No extra water changes needed' : data.status === 'rescued' ? 'These water changes keep it under' : 'Water changes alone cannot keep it under'}</Heading>
@@ -244,28 +239,9 @@ function RescueAdvice({ tank, planId }: AdvicePanelProps) {
 }
 
 function CalibrationAdvice({ tank }: AdvicePanelProps) {
-  const { space } = useTheme();
-  const fit = useCalibration(tank.id);
-  const data = fit.data;
   return (
     <Section testID="advice-calibration">
-      <AppText>{`Fit the model to this tank's own ammonia and nitrite tests from ${fitWindowWords()}.`}</AppText>
-      <Button label="Fit to my tests" busy={fit.isPending} busyLabel={fittingLabel(tank.readings, new Date())} onPress={() => fit.mutate({})} testID="advice-calibration-run" />
-      {fit.isPending ? (
-        <AppText tone="textMuted" accessibilityLiveRegion="polite" testID="calibration-progress">
-          Trying filter strengths and growth speeds against your readings…
-        </AppText>
-      ) : null}
-      {fit.isError ? <Banner tone="danger" title="Could not fit" message={errorText(fit.error)} testID="calibration-error" /> : null}
-      {data ? (
-        <View testID="advice-calibration-result" style={{ gap: space.sm }}>
-          <Heading level={3}>{`Fit: ${data.quality.verdict} (${data.readingsUsed} tests)`}</Heading>
-          <AppText>{`Ammonia-eating capacity now: about ${plainNumber(data.capacity.presentAoMgNPerDay)} mg N a day`}</AppText>
-          <AppText>{`Nitrite-eating capacity now: about ${plainNumber(data.capacity.presentNoMgNPerDay)} mg N a day`}</AppText>
-          <Words lines={data.explanation} />
-          <CautionsList extra={data.cautions} />
-        </View>
-      ) : null}
+      <FitToTests tank={tank} />
     </Section>
   );
 }
@@ -278,7 +254,7 @@ function CapacityTest({ tank }: AdvicePanelProps) {
     <Section testID="advice-capacity-test">
       <AppText>No test history? A guided test measures how much ammonia the biofilter clears in a day.</AppText>
       <Button label="Show the test" busy={test.isPending} busyLabel="Preparing…" onPress={() => test.mutate({})} testID="advice-capacity-run" />
-      {test.isError ? <Banner tone="danger" title="Could not prepare the test" message={errorText(test.error)} /> : null}
+      {test.isError ? <Banner tone="danger" title="Could not prepare the test" message={requestErrorLine(test.error)} /> : null}
       {data ? (
         <View testID="advice-capacity-result" style={{ gap: space.sm }}>
           <Heading level={3}>{`Dose ${plainNumber(data.protocol.doseMgNPerL)} mg N/L, test at hours ${data.protocol.readingHours.join(', ')}`}</Heading>

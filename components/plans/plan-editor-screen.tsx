@@ -4,10 +4,10 @@ import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { ScenarioTank } from '@/shared/tank-scenario';
 import { planCheckDays } from '@/shared/plan-check-days';
-import { START_SENTENCES } from '@/shared/forecast-view';
 import { usePlan, usePlanForecast, useUpdatePlan } from '@/hooks/use-plans';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { useLiveForecast } from '@/hooks/use-forecast';
+import { planForecastVersion } from '@/lib/query-keys';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
@@ -26,6 +26,7 @@ import { AppText, Heading } from '@/components/ui/text';
 import { Loading, LoadError } from '@/components/ui/load-state';
 import { ForecastChart } from '@/components/forecast/forecast-chart';
 import { ForecastVerdict } from '@/components/forecast/forecast-verdict';
+import { ForecastStart } from '@/components/forecast/forecast-start';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { planStatusLabel } from '@/components/tanks/tank-labels';
 import { AdvicePanel } from '@/components/plans/advice-panel';
@@ -45,6 +46,8 @@ export function scenarioTankOf(tank: TankDetail): ScenarioTank {
     khDkh: tank.khDkh,
     tapWater: tank.tapWater,
     setup: tank.setup,
+    history: tank.history,
+    fit: tank.fit,
     livestock: tank.livestock,
     readings: tank.readings,
   };
@@ -82,7 +85,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const prefs = usePreferences();
   const saved = usePlan(planId).data!;
   const save = useUpdatePlan(planId);
-  const server = usePlanForecast(planId, saved.updatedAt);
+  const server = usePlanForecast(planId, planForecastVersion(saved.updatedAt, tank));
 
   const draft = useDraftStore((s) => s.drafts[planId]);
   const selected = useDraftStore((s) => s.selected[planId] ?? null);
@@ -93,7 +96,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const dirty = draft?.dirty ?? false;
   const sTank = useMemo(() => scenarioTankOf(tank), [tank]);
   const tankFish = tank.livestock.reduce((n, l) => n + l.count, 0);
-  const live = useLiveForecast(sTank, draft ? events : undefined);
+  const live = useLiveForecast(sTank, draft ? events : undefined, saved.startDate);
 
   // The saved plan's server forecast (with its band) until the draft changes; then the live one.
   const shownFromServer = !dirty && server.data !== undefined;
@@ -209,7 +212,11 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
             ? `Saved plan. Shaded: where 8 in 10 likely forecasts fall. Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`
             : `Live forecast of your unsaved changes (no shading until you save). Ammonia, nitrite and nitrate ${basisWords(prefs.nitrogenBasis)}.`}
         </AppText>
-        {shownFromServer ? <AppText variant="caption" tone="textMuted" testID="forecast-start">{START_SENTENCES[server.data!.startReason]}</AppText> : null}
+        {shownFromServer ? (
+          <ForecastStart state={server.data!.startState} basis={prefs.nitrogenBasis} fitBand={server.data!.fitBand} />
+        ) : live.startState ? (
+          <ForecastStart state={live.startState} basis={prefs.nitrogenBasis} />
+        ) : null}
       </Card>
   );
   const adviceCard = (

@@ -1,11 +1,12 @@
 import { useMemo } from 'react';
 import { View } from 'react-native';
 import { usePlan, usePlanForecast } from '@/hooks/use-plans';
+import { planForecastVersion } from '@/lib/query-keys';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { SchemeOverrideContext, useTheme } from '@/hooks/use-theme';
-import { START_SENTENCES } from '@/shared/forecast-view';
+import { startLine, startWarningLines } from '@/shared/start-words';
 import { ESTIMATE_CAUTIONS } from '@/simulation/advice/cautions';
 import { MAIN_PANELS } from '@/lib/forecast-panels';
 import { unitsSummary } from '@/lib/units-format';
@@ -42,7 +43,7 @@ function PrintPage({ id }: { id: string }) {
   const { space } = useTheme();
   const plan = usePlan(id);
   const tank = useTankDetail(plan.data?.tankId ?? '');
-  const forecast = usePlanForecast(id, plan.data?.updatedAt);
+  const forecast = usePlanForecast(id, plan.data && tank.data ? planForecastVersion(plan.data.updatedAt, tank.data) : undefined);
   const prefs = usePreferences();
   return (
     <Screen testID="screen-print-plan" title={plan.data ? `Print: ${plan.data.name}` : 'Printable plan'}>
@@ -130,7 +131,7 @@ function PrintBody({ plan, tank, forecast, prefs }: { plan: PlanDetail; tank: Ta
           <>
             <ForecastVerdict view={view} basis={prefs.nitrogenBasis} compact testID="print-verdict" />
             <AppText variant="caption" tone="textMuted">
-              {`${START_SENTENCES[forecast.startReason]} Shaded: where 8 in 10 likely forecasts fall.`}
+              {[startLine(forecast.startState, prefs.nitrogenBasis), ...startWarningLines(forecast.startState, prefs.nitrogenBasis), 'Shaded: where 8 in 10 likely forecasts fall.'].join(' ')}
             </AppText>
             <View style={{ maxWidth: PAPER_CHART_WIDTH }}>
               <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand events={plan.events} only={MAIN_PANELS} testID="print-chart" />

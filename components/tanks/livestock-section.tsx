@@ -1,5 +1,5 @@
-import { useMemo, useState } from 'react';
-import { Pressable, View } from 'react-native';
+import { useState } from 'react';
+import { View } from 'react-native';
 import type { LivestockItem } from '@/shared/schemas/tank';
 import { CATALOGUE } from '@/simulation/catalogue';
 import { useAddLivestock, useRemoveLivestock, useUpdateLivestock } from '@/hooks/use-tanks';
@@ -12,7 +12,7 @@ import { TextField } from '@/components/ui/text-field';
 import { AppText } from '@/components/ui/text';
 import { ChoiceGroup } from '@/components/settings/choice-group';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
-import { searchCatalogue } from '@/components/tanks/catalogue-search';
+import { SpeciesChoices } from '@/components/tanks/species-choices';
 
 const MAX_RESULTS = 8;
 
@@ -48,7 +48,7 @@ export function LivestockSection({ tankId, livestock }: { tankId: string; livest
 }
 
 function AddLivestock({ tankId }: { tankId: string }) {
-  const { colors, radii, space, layout } = useTheme();
+  const { colors, space } = useTheme();
   const add = useAddLivestock(tankId);
   const [kind, setKind] = useState<'catalogue' | 'custom'>('catalogue');
   const [search, setSearch] = useState('');
@@ -58,7 +58,6 @@ function AddLivestock({ tankId }: { tankId: string }) {
   const [length, setLength] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [done, setDone] = useState<string | null>(null);
-  const results = useMemo(() => searchCatalogue(CATALOGUE, search).slice(0, MAX_RESULTS), [search]);
   const chosen = CATALOGUE.find((e) => e.id === speciesId) ?? null;
 
   const submit = () => {
@@ -105,40 +104,16 @@ function AddLivestock({ tankId }: { tankId: string }) {
           <AppText variant="caption" tone="textMuted">
             Catalogue lengths are typical adult sizes and approximate; enter your fish's real length if you know it.
           </AppText>
-          <View accessibilityRole="radiogroup" accessibilityLabel="Species" style={{ gap: space.xs }}>
-            {results.map((e) => {
-              const selected = e.id === speciesId;
-              return (
-                <Pressable
-                  key={e.id}
-                  accessibilityRole="radio"
-                  accessibilityState={{ checked: selected }}
-                  aria-checked={selected}
-                  accessibilityLabel={`${e.commonName}, ${e.scientificName}, about ${e.adultLengthCm} cm adult, approximate`}
-                  testID={`species-${e.id}`}
-                  onPress={() => {
-                    setSpeciesId(e.id);
-                    setErrors(({ speciesId: _s, ...rest }) => rest);
-                    setDone(null);
-                  }}
-                  style={{
-                    minHeight: layout.minTouchTarget,
-                    justifyContent: 'center',
-                    paddingHorizontal: space.md,
-                    paddingVertical: space.xs,
-                    borderRadius: radii.md,
-                    borderWidth: selected ? 2 : 1,
-                    borderColor: selected ? colors.primary : colors.border,
-                    backgroundColor: selected ? colors.navActiveSurface : colors.surface,
-                  }}
-                >
-                  <AppText weight={selected ? 'bold' : 'regular'}>{`${selected ? '✓ ' : ''}${e.commonName}`}</AppText>
-                  <AppText variant="caption" tone="textMuted">{`${e.scientificName} · about ${e.adultLengthCm} cm adult (approximate)${e.invertebrate ? ' · invertebrate' : ''}`}</AppText>
-                </Pressable>
-              );
-            })}
-            {results.length === 0 ? <AppText tone="textMuted">No species match. Try another name, or add a custom fish.</AppText> : null}
-          </View>
+          <SpeciesChoices
+            query={search}
+            selectedId={speciesId}
+            max={MAX_RESULTS}
+            onSelect={(id) => {
+              setSpeciesId(id);
+              setErrors(({ speciesId: _s, ...rest }) => rest);
+              setDone(null);
+            }}
+          />
           {chosen ? <AppText weight="bold" testID="livestock-chosen">{`Chosen: ${chosen.commonName}`}</AppText> : null}
         </View>
       ) : (

@@ -24,6 +24,9 @@ import { judgeLatest } from '@/shared/tank-status';
 import { QuickTestForm } from '@/components/readings/quick-test-form';
 import { ReadingsLog } from '@/components/readings/readings-log';
 import { CsvImportExport } from '@/components/readings/csv-import';
+import { TankHistorySection } from '@/components/tanks/tank-history-section';
+import { FitToTests } from '@/components/tanks/fit-to-tests';
+import { TEST_START_MAX_DAYS } from '@/shared/tank-start';
 
 /** One tank: log a test at the top (phone first), then the log, stock, setup and plans. */
 export function TankDetailScreen({ id }: { id: string }) {
@@ -102,6 +105,20 @@ function TankDetailBody({ tank, now }: { tank: TankDetail; now: Date }) {
           </Section>
         </View>
       </View>
+
+      <Section title="Where forecasts start" testID="tank-start">
+        <AppText tone="textMuted">
+          {`Every forecast starts from your latest test when it is at most ${TEST_START_MAX_DAYS} days old, with the nitrifiers of an applied fit, else of how you say the tank has run.`}
+        </AppText>
+        <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.lg }}>
+          <View style={{ flexGrow: 1, flexBasis: 320, gap: space.md }}>
+            <TankHistorySection tank={tank} />
+          </View>
+          <View style={{ flexGrow: 1, flexBasis: 320, gap: space.md }}>
+            <FitToTests tank={tank} />
+          </View>
+        </View>
+      </Section>
 
       <Section title="Test log" testID="tank-readings">
         <ReadingsLog tankId={tank.id} tank={tank} />

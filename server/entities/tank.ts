@@ -1,5 +1,6 @@
 import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn, type Relation } from 'typeorm';
 import type { TankSetup } from '../../shared/schemas/tank.js';
+import type { TankHistory } from '../../shared/schemas/tank-history.js';
 import { User } from './user.js';
 
 /** A keeper's tank. Tap-water nitrogen is stored as mg N per litre. */
@@ -44,6 +45,10 @@ export class Tank {
 
   @Column({ type: 'text', default: '' })
   notes: string;
+
+  /** The keeper's account of the tank's past (shared/schemas/tank-history.ts); null: not given. */
+  @Column({ type: 'jsonb', nullable: true })
+  history: TankHistory | null;
 
   @CreateDateColumn({ type: 'timestamptz', name: 'created_at' })
   createdAt: Date;

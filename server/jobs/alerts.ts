@@ -1,14 +1,13 @@
 import { randomUUID } from 'node:crypto';
 import { In, type DataSource } from 'typeorm';
 import type { AppDeps } from '../deps.js';
-import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import { Tank } from '../entities/tank.js';
 import { User } from '../entities/user.js';
 import { readingAlertMail } from '../mail/templates/reading-alert.js';
 import { runEngine } from '../services/engine-runs.js';
-import { scenarioFromPlan } from '../services/scenario-from-plan.js';
+import { planScenarioOrThrow } from '../services/plan-forecasts.js';
 import type { WaterTestJudgement } from '../../simulation/water-test.js';
 import { forecastFindings, judgeReading, limitFindings, type ReadingValues } from './alert-findings.js';
 import { planDay, type JobDeps } from './reminders.js';
@@ -51,7 +50,8 @@ async function activePlanFindings(ds: DataSource, tank: Tank, checked: readonly 
   const days = checked.map((c) => planDay(plan.startDate, c.reading.takenAt.toISOString().slice(0, 10)));
   const lastDay = Math.max(...days);
   if (lastDay < 0) return out;
-  const scenario = scenarioFromPlan(tank, await ds.getRepository(Livestock).findBy({ tankId: tank.id }), plan);
+  // The plan's own forecast, from the same start as on the plan page (its tests, fit and account: shared/tank-start.ts).
+  const { scenario } = await planScenarioOrThrow(ds, { plan, tank });
   // On the engine pool like every forecast: a heavy plan may take a worker's time, never the main thread's.
   const { value: series } = await runEngine<{ days: number[]; tanMgN: number[]; no2MgN: number[] }>({
     kind: 'forecast-series',

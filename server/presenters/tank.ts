@@ -4,6 +4,7 @@ import type { Plan } from '../entities/plan.js';
 import type { TankDetailRows, TankSummaryRow } from '../services/tanks.js';
 import { presentLivestock } from './livestock.js';
 import { presentReading } from './reading.js';
+import { presentTankFit } from './tank-fit.js';
 
 export function presentTankSummary(row: TankSummaryRow): TankSummary {
   const { tank, latestReading: r, activePlan: p } = row;
@@ -31,7 +32,7 @@ export function presentPlan(p: Plan): PlanItem {
   return { id: p.id, name: p.name, startDate: p.startDate, status: p.status, events: p.events };
 }
 
-export function presentTankDetail({ tank, livestock, readings, plans }: TankDetailRows): TankDetail {
+export function presentTankDetail({ tank, livestock, readings, plans, fit }: TankDetailRows): TankDetail {
   return {
     id: tank.id,
     name: tank.name,
@@ -42,6 +43,8 @@ export function presentTankDetail({ tank, livestock, readings, plans }: TankDeta
     tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
     setup: tank.setup,
     notes: tank.notes,
+    history: tank.history ?? null,
+    fit: fit ? presentTankFit(fit) : null,
     livestock: livestock.map(presentLivestock),
     readings: readings.map(presentReading),
     plans: plans.map(presentPlan),

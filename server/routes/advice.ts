@@ -13,6 +13,8 @@ import { requireAuth } from '../middleware/require-auth.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { additionAdvice, calibrationAdvice, capacityTestAdvice, ensembleAdvice, removalAdvice, rescueAdvice } from '../services/advice.js';
 import { ownTankParam } from './params.js';
+import { requestDb } from '../middleware/request-db.js';
+import { presentCalibration } from '../presenters/tank-fit.js';
 
 /** Advice, ensemble, calibration and capacity-test routes on a saved tank (mounted on /api). */
 export function adviceRouter(deps: AppDeps): Router {
@@ -33,7 +35,7 @@ export function adviceRouter(deps: AppDeps): Router {
     res.json(await ensembleAdvice(ds, await ownTankParam(ds, req), validBody(req, ensembleBodySchema), engineCaller(req, res, deps)));
   });
   router.post('/tanks/:tankId/calibration', auth, validateBody(calibrationBodySchema), async (req, res) => {
-    res.json(await calibrationAdvice(ds, await ownTankParam(ds, req), validBody(req, calibrationBodySchema), engineCaller(req, res, deps)));
+    res.json(presentCalibration(await calibrationAdvice(ds, requestDb(req, ds), await ownTankParam(ds, req), validBody(req, calibrationBodySchema), engineCaller(req, res, deps))));
   });
   router.post('/tanks/:tankId/capacity-test', auth, validateBody(capacityTestBodySchema), async (req, res) => {
     res.json(await capacityTestAdvice(ds, await ownTankParam(ds, req), validBody(req, capacityTestBodySchema), engineCaller(req, res, deps)));

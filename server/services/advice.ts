@@ -26,6 +26,9 @@ import type { Tank } from '../entities/tank.js';
 import { notFound, validationFailed } from '../errors.js';
 import { runEngine, type EngineCaller } from './engine-runs.js';
 import { scenarioTankOf } from './plans.js';
+import { keepOfferedFit } from './tank-fits.js';
+import { fitAdvice } from '../../shared/fit-advice.js';
+import type { Db } from '../data-source.js';
 
 /**
  * Advice on a saved tank (and optionally one of its plans): the request carries only what the
@@ -37,16 +40,23 @@ const DAY_MS = 86_400_000;
 /** Most readings one calibration uses (calibrationRequestSchema allows 2000; these are the newest). */
 export const CALIBRATION_MAX_READINGS = 500;
 
-async function planEvents(ds: DataSource, tank: Tank, planId: string | undefined): Promise<ScenarioEvent[]> {
-  if (!planId) return [];
+/** The plan's events and its start date (day 0); without a plan, no events and today (UTC). */
+async function planOf(ds: DataSource, tank: Tank, planId: string | undefined, now = new Date()): Promise<{ events: ScenarioEvent[]; startDate: string }> {
+  if (!planId) return { events: [], startDate: now.toISOString().slice(0, 10) };
   const plan = await ds.getRepository(Plan).findOneBy({ id: planId, tankId: tank.id });
   if (!plan) throw notFound('No such plan on this tank.');
-  return plan.events;
+  return { events: plan.events, startDate: plan.startDate };
 }
 
-async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number } = {}): Promise<Scenario> {
+/**
+ * The tank's scenario running `events`. With `startDate` it starts from the tank's evidence
+ * on that day (latest test, applied fit: shared/tank-start.ts); with `evidence: 'description'`
+ * from its description or the default only (the calibration's prior, which the fit replaces).
+ */
+async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number; startDate?: string; evidence?: 'all' | 'description' } = {}): Promise<Scenario> {
+  const readsEvidence = !options.start && options.evidence !== 'description';
   try {
-    return parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }, options).scenario);
+    return parseScenario(tankScenario(await scenarioTankOf(ds, tank, readsEvidence ? options.startDate : undefined), { events }, options).scenario);
   } catch (e) {
     if (e instanceof ScenarioError) throw validationFailed(e.fields);
     throw e;
@@ -56,34 +66,38 @@ async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], o
 /** Fastest safe schedule for the fish; the plan's own add-fish events are left out (the schedule replaces them). */
 export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
-  const events = (await planEvents(ds, tank, planId)).filter((e) => e.type !== 'add-fish');
-  const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365 });
+  const plan = await planOf(ds, tank, planId);
+  const events = plan.events.filter((e) => e.type !== 'add-fish');
+  const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365, startDate: plan.startDate });
   const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } }, caller);
   return additionResponseSchema.parse(value);
 }
 
 export async function removalAdvice(ds: DataSource, tank: Tank, body: z.output<typeof removalAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
-  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId), { horizonDays: 365 });
+  const plan = await planOf(ds, tank, planId);
+  const scenario = await scenarioOf(ds, tank, plan.events, { horizonDays: 365, startDate: plan.startDate });
   const { value } = await runEngine({ kind: 'removal', request: { ...request, scenario } }, caller);
   return removalResponseSchema.parse(value);
 }
 
 export async function rescueAdvice(ds: DataSource, tank: Tank, body: z.output<typeof rescueAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
-  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, planId));
+  const plan = await planOf(ds, tank, planId);
+  const scenario = await scenarioOf(ds, tank, plan.events, { startDate: plan.startDate });
   const { value } = await runEngine({ kind: 'rescue', request: { ...request, scenario } }, caller);
   return rescueResponseSchema.parse(value);
 }
 
 export async function ensembleAdvice(ds: DataSource, tank: Tank, body: z.output<typeof ensembleBodySchema>, caller?: EngineCaller) {
-  const scenario = await scenarioOf(ds, tank, await planEvents(ds, tank, body.planId));
+  const plan = await planOf(ds, tank, body.planId);
+  const scenario = await scenarioOf(ds, tank, plan.events, { startDate: plan.startDate });
   const { value } = await runEngine({ kind: 'ensemble', scenario, members: body.members, seed: body.seed, horizonDays: body.horizonDays }, caller);
   return ensembleResponseSchema.parse(value);
 }
 
 /** Fits the model to the tank's own logged ammonia and nitrite tests (day 0 = the first one used). */
-export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.output<typeof calibrationBodySchema>, caller?: EngineCaller, now = new Date()) {
+export async function calibrationAdvice(ds: DataSource, db: Db, tank: Tank, body: z.output<typeof calibrationBodySchema>, caller?: EngineCaller, now = new Date()) {
   const since = new Date(now.getTime() - (body.sinceDays ?? CALIBRATION_DEFAULT_DAYS) * DAY_MS);
   const rows = (
     await ds.getRepository(Reading).find({
@@ -104,14 +118,23 @@ export async function calibrationAdvice(ds: DataSource, tank: Tank, body: z.outp
     ...(r.no2MgN !== null ? { no2MgN: Math.min(r.no2MgN, 100) } : {}),
   }));
   const lastDay = readings.at(-1)!.day;
-  const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1) });
+  // The prior: the tank as described (or by default) on the day of the first test; the fit replaces any fit applied before.
+  const scenario = await scenarioOf(ds, tank, [], { horizonDays: Math.max(1, Math.ceil(lastDay) + 1), startDate: rows[0].takenAt.toISOString().slice(0, 10), evidence: 'description' });
   const { sinceDays: _since, ...options } = body;
   const { value } = await runEngine({ kind: 'calibration', request: { ...options, scenario, readings } }, caller);
-  return { ...calibrationResponseSchema.parse(value), readingsUsed: rows.length, firstReadingAt: rows[0].takenAt.toISOString() };
+  const result = calibrationResponseSchema.parse(value);
+  // Kept as the tank's offered fit (through the key's transaction when there is one), so one tap applies it.
+  const fit = await keepOfferedFit(db, tank, {
+    lastReadingAt: rows.at(-1)!.takenAt,
+    readingsUsed: rows.length,
+    verdict: result.quality.verdict,
+    capacities: result.capacity.presentByZone,
+  });
+  return { ...result, readingsUsed: rows.length, firstReadingAt: rows[0].takenAt.toISOString(), fit, advice: fitAdvice(readings, { verdict: result.quality.verdict, standardErrors: result.standardErrors }) };
 }
 
 export async function capacityTestAdvice(ds: DataSource, tank: Tank, body: z.output<typeof capacityTestBodySchema>, caller?: EngineCaller) {
-  const scenario = await scenarioOf(ds, tank, [], body.start ? { start: body.start } : {});
+  const scenario = await scenarioOf(ds, tank, [], body.start ? { start: body.start } : { startDate: new Date().toISOString().slice(0, 10) });
   const { value } = await runEngine({ kind: 'capacity-test', scenario, solution: body.solution, limits: body.limits, test: body.test }, caller);
   return capacityTestResponseSchema.parse(value);
 }

@@ -3,6 +3,9 @@ import { independentQueries, type Db } from '../data-source.js';
 import { parseScenario, ScenarioError, type ScenarioEvent } from '../../simulation/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
 import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
+import type { StartReading } from '../../shared/tank-start.js';
+import type { TankFit } from '../entities/tank-fit.js';
+import { appliedFit } from './tank-fits.js';
 import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
@@ -45,13 +48,13 @@ export async function listOwnPlans(ds: DataSource, ownerId: string): Promise<Own
   return plans.map((plan) => ({ plan, tank: byId.get(plan.tankId)! }));
 }
 
-/** What the scenario builder needs of a stored tank: its livestock and whether it has tests. */
 /**
- * A stored tank and its livestock as the engine's tank (shared/tank-scenario.ts). Only the
- * number of logged tests matters to the scenario (whether the tank has a history).
+ * A stored tank and its livestock as the engine's tank (shared/tank-scenario.ts). `readings`
+ * are the tests the start rule may read (newest first; shared/tank-start.ts), `fit` the
+ * applied fit; with `hasReadings` only, the tank's history is known but no test is used.
  */
-/** `hasReadings`: whether the tank has any logged test (all the start rule asks of them). */
-export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasReadings: boolean): ScenarioTank {
+export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasReadings: boolean, evidence: { readings?: readonly Reading[]; fit?: TankFit | null } = {}): ScenarioTank {
+  const readings = evidence.readings?.length ? evidence.readings.map(startReadingOf) : hasReadings ? [null] : [];
   return {
     volumeL: tank.volumeL,
     temperatureC: tank.temperatureC,
@@ -59,19 +62,51 @@ export function toScenarioTank(tank: Tank, livestock: readonly Livestock[], hasR
     khDkh: tank.khDkh,
     tapWater: { tanMgN: tank.tapTanMgN, no2MgN: tank.tapNo2MgN, no3MgN: tank.tapNo3MgN },
     setup: tank.setup ?? {},
+    history: tank.history ?? null,
+    fit: evidence.fit ? { fittedAt: evidence.fit.fittedAt.toISOString(), capacities: evidence.fit.capacities } : null,
     livestock: livestock.map((l) => ({ id: l.id, speciesId: l.speciesId, customName: l.customName, count: l.count, lengthCm: l.lengthCm })),
-    readings: hasReadings ? [null] : [],
+    readings,
   };
 }
 
-export async function scenarioTankOf(ds: Db, tank: Tank): Promise<ScenarioTank> {
-  const [livestock, hasReadings] = await independentQueries(
+function startReadingOf(r: Reading): StartReading {
+  return { takenAt: r.takenAt.toISOString(), tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN, ph: r.ph, temperatureC: r.temperatureC };
+}
+
+const DAY_MS = 86_400_000;
+
+/**
+ * The stored tank for a scenario. With `startDate` (the forecast's day 0), also the latest
+ * test with a nitrogen value up to the end of that day and the applied fit: the evidence the
+ * start rule reads (shared/tank-start.ts).
+ */
+export async function scenarioTankOf(ds: Db, tank: Tank, startDate?: string): Promise<ScenarioTank> {
+  if (!startDate) {
+    const [livestock, hasReadings] = await independentQueries(
+      ds,
+      () => ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
+      // Not a count: a tank's log grows for years, and only "any at all" matters here.
+      () => ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
+    );
+    return toScenarioTank(tank, livestock, hasReadings);
+  }
+  const dayEnd = new Date(Date.parse(`${startDate}T00:00:00Z`) + DAY_MS);
+  const [livestock, hasReadings, latest, fit] = await independentQueries(
     ds,
     () => ds.getRepository(Livestock).find({ where: { tankId: tank.id }, order: { createdAt: 'ASC' } }),
-    // Not a count: a tank's log grows for years, and only "any at all" matters here.
     () => ds.getRepository(Reading).exists({ where: { tankId: tank.id } }),
+    () =>
+      ds
+        .getRepository(Reading)
+        .createQueryBuilder('r')
+        .where('r.tank_id = :id AND r.taken_at < :end', { id: tank.id, end: dayEnd })
+        .andWhere('(r.tan_mg_n IS NOT NULL OR r.no2_mg_n IS NOT NULL OR r.no3_mg_n IS NOT NULL)')
+        .orderBy('r.taken_at', 'DESC')
+        .limit(1)
+        .getMany(),
+    () => appliedFit(ds, tank.id),
   );
-  return toScenarioTank(tank, livestock, hasReadings);
+  return toScenarioTank(tank, livestock, hasReadings, { readings: latest, fit });
 }
 
 /**

@@ -12,7 +12,8 @@ import { toScenarioTank } from './plans.js';
  * a length).
  */
 export function scenarioFromPlan(tank: Tank, livestock: Livestock[], plan: Plan): Scenario {
-  const { scenario } = tankScenario(toScenarioTank(tank, livestock, false), { name: plan.name, events: plan.events });
+  // The keeper's account of the tank at the plan's start; tests and fits are not read here (callers hold no readings).
+  const { scenario } = tankScenario(toScenarioTank(tank, livestock, false), { name: plan.name, events: plan.events }, { startDate: plan.startDate, evidence: 'description' });
   return parseScenario(scenario);
 }
 

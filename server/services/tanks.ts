@@ -5,6 +5,8 @@ import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import { Tank } from '../entities/tank.js';
+import type { TankFit } from '../entities/tank-fit.js';
+import { appliedFit } from './tank-fits.js';
 import { findSpecies } from '../../simulation/catalogue.js';
 
 export interface TankSummaryRow {
@@ -21,6 +23,8 @@ export interface TankDetailRows {
   livestock: Livestock[];
   readings: Reading[];
   plans: Plan[];
+  /** the applied fit (absent where a view does not show it, e.g. a shared tank) */
+  fit?: TankFit | null;
 }
 
 /** The keeper's own tanks by name, with the counts and latest items the home screen shows. */
@@ -79,13 +83,14 @@ export async function listOwnTanks(ds: DataSource, ownerId: string): Promise<Tan
 export async function getOwnTank(ds: Db, ownerId: string, tankId: string): Promise<TankDetailRows | null> {
   const tank = await ds.getRepository(Tank).findOneBy({ id: tankId, ownerId });
   if (!tank) return null;
-  const [livestock, readings, plans] = await independentQueries(
+  const [livestock, readings, plans, fit] = await independentQueries(
     ds,
     () => ds.getRepository(Livestock).find({ where: { tankId }, order: { createdAt: 'ASC' } }),
     () => ds.getRepository(Reading).find({ where: { tankId }, order: { takenAt: 'DESC' }, take: TANK_DETAIL_READING_LIMIT }),
     () => ds.getRepository(Plan).find({ where: { tankId }, order: { startDate: 'DESC', createdAt: 'DESC' } }),
+    () => appliedFit(ds, tankId),
   );
-  return { tank, livestock, readings, plans };
+  return { tank, livestock, readings, plans, fit };
 }
 
 /** Creates a tank for `ownerId`; anything not given takes the newcomer defaults (TANK_DEFAULTS). */
@@ -104,6 +109,7 @@ export async function createOwnTank(ds: Db, ownerId: string, input: TankCreateIn
       tapNo3MgN: input.tapWater?.no3MgN ?? 0,
       setup: input.setup ?? defaultSetup(input.volumeL, input.filterKind),
       notes: input.notes ?? '',
+      history: input.history ?? null,
     }),
   );
 }
@@ -125,6 +131,7 @@ export async function updateOwnTank(ds: DataSource, ownerId: string, tankId: str
   }
   if (patch.setup !== undefined) tank.setup = patch.setup;
   if (patch.notes !== undefined) tank.notes = patch.notes;
+  if (patch.history !== undefined) tank.history = patch.history;
   return repo.save(tank);
 }
 

@@ -21,15 +21,17 @@ import {
   type RescueRequest,
 } from '../../simulation/advice/index.js';
 import { MIN_BAND_MEMBERS, DEFAULT_SEED } from '../../simulation/advice/ensemble.js';
+import { describeBandChange, meanBandWidth } from '../../simulation/advice/calibration.js';
 import { ESTIMATE_CAUTIONS } from '../../simulation/advice/cautions.js';
-import type { Scenario, ScenarioInput } from '../../simulation/scenario.js';
+import type { Scenario, ScenarioInput, Start } from '../../simulation/scenario.js';
 import type { LimitSettings } from '../../simulation/advice/tank-limits.js';
 import { overEnsembleBudgetFields } from '../../simulation/work-budget.js';
 import type { CapacityTestRequest } from '../../simulation/advice/schemas.js';
 import type { AmmoniaSolution } from '../../simulation/dosing.js';
 
 export type EngineTask =
-  | { kind: 'forecast'; scenario: ScenarioInput; band: boolean }
+  /** `compareStart`: also the band with this start (the tank without its fit), to say how much the fit narrowed it. */
+  | { kind: 'forecast'; scenario: ScenarioInput; band: boolean; compareStart?: Start }
   /** The central forecast's TAN and nitrite by day (the reading-alert job compares a test with it). */
   | { kind: 'forecast-series'; scenario: ScenarioInput; horizonDays: number }
   | { kind: 'addition'; request: Omit<AdditionRequest, 'scenario'> & { scenario: ScenarioInput } }
@@ -69,10 +71,20 @@ function run(task: EngineTask): unknown {
       const scenario = parseScenario(task.scenario);
       const central = forecastParsed(scenario);
       if (!task.band) return { forecast: forecastView(central), explanation: [] };
-      const ensemble = runEnsemble(scenario, { members: FORECAST_BAND_MEMBERS }, { horizonDays: central.series.days.at(-1) });
+      const horizon = { horizonDays: central.series.days.at(-1) };
+      const ensemble = runEnsemble(scenario, { members: FORECAST_BAND_MEMBERS }, horizon);
+      // The same draws on the start the tank would have without its fit: how much the fit narrowed the band.
+      const without = task.compareStart ? runEnsemble(parseScenario({ ...task.scenario, start: task.compareStart }), { members: FORECAST_BAND_MEMBERS }, horizon).band : null;
+      const fitBand = without
+        ? {
+            tanMgN: { prior: meanBandWidth(without.tanMgN), calibrated: meanBandWidth(ensemble.band.tanMgN) },
+            no2MgN: { prior: meanBandWidth(without.no2MgN), calibrated: meanBandWidth(ensemble.band.no2MgN) },
+          }
+        : null;
       return {
         forecast: forecastView(central, ensemble.band, ensemble.forecasts.length),
-        explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED)],
+        explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED), ...(fitBand ? [describeBandChange(fitBand.tanMgN, fitBand.no2MgN)] : [])],
+        fitBand,
       };
     }
     case 'forecast-series': {

@@ -1,6 +1,9 @@
 import { z } from 'zod';
 import { eventSchema, fishGroupSchema, startSchema } from '../../simulation/scenario';
 import { planStatusSchema } from './tank';
+import { isoDate } from './iso-date';
+import { START_REASONS, startStateSchema } from './start-state';
+import { tankFitSchema } from './tank-history';
 import { MAX_HORIZON_DAYS } from '../tank-scenario';
 import { countTimelineEntries, MAX_TIMELINE_ENTRIES, overBudgetMessage } from '../../simulation/work-budget';
 import {
@@ -22,10 +25,6 @@ import {
  * `eventSchema`; days count from the plan's start date.
  */
 
-const isoDate = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-03-14.')
-  .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a calendar date.');
 
 /** Most events one plan holds (a year of twice-weekly doses fits). */
 export const PLAN_EVENT_LIMIT = 200;
@@ -110,7 +109,12 @@ export const forecastViewSchema = z.object({
 });
 export type ForecastView = z.infer<typeof forecastViewSchema>;
 
-export const START_REASONS = ['given', 'mature-present-load', 'new-unseeded', 'new-no-fish'] as const;
+/** How much a fit narrowed the band: mean widths (mg N/L) with the fit and with the start the tank would have without it. */
+export const fitBandSchema = z.object({
+  tanMgN: z.object({ prior: z.number(), calibrated: z.number() }),
+  no2MgN: z.object({ prior: z.number(), calibrated: z.number() }),
+});
+export type FitBand = z.infer<typeof fitBandSchema>;
 
 export const planForecastResponseSchema = z.object({
   planId: z.string().uuid(),
@@ -119,6 +123,10 @@ export const planForecastResponseSchema = z.object({
   inputHash: z.string().length(64),
   engineVersion: z.string(),
   startReason: z.enum(START_REASONS),
+  /** what the forecast started from (the start line and its warnings are worded from it) */
+  startState: startStateSchema,
+  /** with an applied fit: the band's width with it and without it (null otherwise) */
+  fitBand: fitBandSchema.nullable(),
   computedAt: z.string(),
   forecast: forecastViewSchema,
   explanation: z.array(z.string()).min(1),
@@ -155,6 +163,11 @@ export const capacityTestBodySchema = z.object({
 export const calibrationAdviceResponseSchema = calibrationResponseSchema.extend({
   readingsUsed: z.number().int(),
   firstReadingAt: z.string(),
+  /** the fit as kept for the tank, ready to apply (POST /api/tanks/:tankId/fit) */
+  fit: tankFitSchema,
+  /** why a poor or fair fit is so, and which test would help most (empty for a good fit) */
+  advice: z.array(z.string()),
 });
+export type CalibrationAdviceResponse = z.infer<typeof calibrationAdviceResponseSchema>;
 /** The engine's own answers, passed through unchanged. */
 export { adviceSettingsSchema, capacityTestResponseSchema, ensembleResponseSchema, fishGroupSchema };

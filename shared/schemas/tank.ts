@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { FILTER_KINDS } from '../../simulation/presets';
 import { AERATION_LEVELS, MEDIA_TYPES, PLANTING_LEVELS, eventSchema, zoneSchema, type ScenarioEvent } from '../../simulation/scenario';
+import { tankFitSchema, tankHistorySchema } from './tank-history';
 
 /** Basis a test kit reports ammonia/nitrite/nitrate in: as nitrogen, or as the ion. */
 export const readingBasisSchema = z.enum(['N', 'ion']);
@@ -129,6 +130,10 @@ export const tankDetailSchema = z.object({
   tapWater: z.object({ tanMgN: z.number(), no2MgN: z.number(), no3MgN: z.number() }),
   setup: tankSetupSchema,
   notes: z.string(),
+  /** the keeper's account of the tank's past (null: not given) */
+  history: tankHistorySchema.nullable(),
+  /** the applied fit every forecast starts from (null: none applied) */
+  fit: tankFitSchema.nullable(),
   livestock: z.array(livestockSchema),
   readings: z.array(readingSchema),
   plans: z.array(planSchema),
@@ -196,6 +201,7 @@ export const tankCreateSchema = z.strictObject({
   filterKind: z.enum(FILTER_KINDS, { error: 'Choose a filter kind.' }).optional(),
   setup: tankSetupSchema.optional(),
   notes: z.string().max(2000, 'Use at most 2000 characters.').optional(),
+  history: tankHistorySchema.nullable().optional(),
 });
 export type TankCreateInput = z.infer<typeof tankCreateSchema>;
 
@@ -209,6 +215,7 @@ export const tankPatchSchema = z.strictObject({
   tapWater: tapWaterInputSchema.optional(),
   setup: tankSetupSchema.optional(),
   notes: z.string().max(2000, 'Use at most 2000 characters.').optional(),
+  history: tankHistorySchema.nullable().optional(),
 });
 export type TankPatchInput = z.infer<typeof tankPatchSchema>;
 

@@ -70,6 +70,8 @@ export interface CalibrationResult {
     presentNoMgNPerDay: number;
     /** the present ammonia-oxidiser capacity as mg NH3 a day */
     presentAoMgNH3PerDay: number;
+    /** per zone at the last reading (the explicit start of a forecast from then on) */
+    presentByZone: { zoneId: string; aoMgNPerDay: number; noMgNPerDay: number }[];
   };
   /** log-parameter standard errors, in the order of `fit` */
   standardErrors: Record<FitKey, number | null>;
@@ -289,7 +291,7 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
     }
   }
   const calibrated = bandOf(calibratedForecasts);
-  const width = (b: { p10: number[]; p90: number[] }) => b.p90.reduce((s, x, i) => s + x - b.p10[i], 0) / b.p90.length;
+  const width = meanBandWidth;
 
   const last = best.series.days.length - 1;
   const sum = (k: 'ao' | 'no', i: number) => best.series.zones.reduce((s, z) => s + z[k][i], 0);
@@ -313,6 +315,7 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
       presentAoMgNPerDay: presentAo,
       presentNoMgNPerDay: sum('no', last),
       presentAoMgNH3PerDay: (presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N,
+      presentByZone: best.series.zones.map((z) => ({ zoneId: z.zoneId, aoMgNPerDay: z.ao[last], noMgNPerDay: z.no[last] })),
     },
     standardErrors,
     quality: { rmseKitSteps, reducedChiSquare, readings: obs.length, verdict, iterations: lm.iterations, stop: lm.stop, forecasts },
@@ -327,6 +330,11 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
     explanation,
     cautions: [...ESTIMATE_CAUTIONS],
   };
+}
+
+/** Mean width of a band (p90 − p10 averaged over its samples), mg N/L: how the fit's band change is measured. */
+export function meanBandWidth(b: { p10: readonly number[]; p90: readonly number[] }): number {
+  return b.p90.reduce((s, x, i) => s + x - b.p10[i], 0) / b.p90.length;
 }
 
 /** Within this share either way a band "stays about as wide" (widths are means over a 64-member ensemble). */

@@ -208,6 +208,8 @@ export const calibrationResponseSchema = z.object({
     presentAoMgNPerDay: z.number(),
     presentNoMgNPerDay: z.number(),
     presentAoMgNH3PerDay: z.number(),
+    /** per zone at the last reading: the explicit start a later forecast takes when the fit is applied */
+    presentByZone: z.array(z.object({ zoneId: z.string(), aoMgNPerDay: z.number(), noMgNPerDay: z.number() })),
   }),
   standardErrors: z.object({ ao: z.number().nullable(), no: z.number().nullable(), growth: z.number().nullable() }),
   quality: z.object({

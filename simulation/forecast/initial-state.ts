@@ -6,9 +6,9 @@ import type { ResolvedZone } from '../presets';
 import type { Scenario } from '../scenario';
 import { LoadTooHighError, matureSteadyState } from '../steady-state';
 import { optionError } from './options';
+import { MAX_SETTLED_CLOCK_DAYS } from './settled-clock';
+import { describedStartState } from './starved-start';
 
-/** A zone that never eats has starved "for ever"; a year is as good (the late loss is reached within weeks). */
-const MAX_SETTLED_CLOCK_DAYS = 365;
 
 /**
  * A load the zones cannot carry, named by its cause: the acid water when nitrification at a
@@ -60,6 +60,8 @@ export function initialState(scenario: Scenario, model: Model, zones: readonly R
     }
     // Given capacities describe an established community: adapted to the tank's own water.
     y[I_ACID] = model.acidTarget(kh0);
+  } else if (start.kind === 'starved' || start.kind === 'seeded') {
+    describedStartState(scenario, start, zones, kh0, y, p);
   } else {
     const load = start.loadMgNPerDay ?? feedFlows.excretedTan + feedFlows.toOrg;
     let ss;

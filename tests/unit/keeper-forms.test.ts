@@ -44,6 +44,8 @@ describe('tank form', () => {
       tapWater: { tanMgN: 0.3883, no2MgN: 0, no3MgN: 2 },
       setup: { filter: { kind: 'canister', mediaVolumeL: 2 }, substrate: { grain: 'sand', depthCm: 4 }, hardscape: 'lots', plants: 'heavy', lightHoursPerDay: 9 },
       notes: '',
+      history: null,
+      fit: null,
       livestock: [],
       readings: [],
       plans: [],

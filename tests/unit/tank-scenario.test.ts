@@ -24,7 +24,7 @@ function communityTank(over: Partial<ScenarioTank> = {}): ScenarioTank {
       { id: ID, speciesId: 'neon-tetra', customName: null, count: 12, lengthCm: 3 },
       { id: ID, speciesId: 'bronze-corydoras', customName: null, count: 6, lengthCm: 5.5 },
     ],
-    readings: [{}, {}],
+    readings: [null, null],
     ...over,
   };
 }

@@ -160,6 +160,12 @@ export const MATRIX: Record<string, MatrixRow> = {
     request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/calibration`, body: { sinceDays: 30 } }),
     expect: ownerOnly(),
   },
+  // No fit has run on the fixture's tank: the owner's apply finds no such fit (404) — others never reach it.
+  'POST /api/tanks/:tankId/fit': {
+    request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/fit`, body: { fitId: '00000000-0000-4000-8000-000000000000' } }),
+    expect: ownerOnly(404),
+  },
+  'DELETE /api/tanks/:tankId/fit': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/fit` }), expect: ownerOnly() },
   'POST /api/tanks/:tankId/capacity-test': { request: (fx) => ({ path: `/api/tanks/${fx.tanks.member}/capacity-test`, body: {} }), expect: ownerOnly() },
 
   // ── clubs: outside the club → 404, wrong role → 403 ─────────────────────────────────
