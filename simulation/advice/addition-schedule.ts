@@ -97,7 +97,7 @@ function possibleDays(c: Required<Pick<AdditionConstraints, 'firstDay'>> & Addit
 }
 
 function batchEvents(fish: FishGroup, batches: readonly Batch[]): ScenarioEvent[] {
-  return batches.map((b) => ({ type: 'add-fish', day: b.day, fish: { ...fish, count: b.count } }));
+  return batches.map((b) => ({ type: 'add-fish', day: b.day, fish: [{ ...fish, count: b.count }] }));
 }
 
 interface SearchResult {

@@ -81,7 +81,7 @@ describe('lessons', () => {
     const ds = ctx.deps.dataSource;
     const memberId = (await ds.query(`SELECT id FROM users WHERE email = 'member-a@example.org'`))[0].id as string;
     const tank = await createTank(ds, memberId, { name: 'Study tank' });
-    const plan = await createPlan(ds, tank.id, { name: 'Twelve rasboras', events: [{ type: 'add-fish', day: 2, fish: { species: 'harlequin-rasbora', count: 12 } }] });
+    const plan = await createPlan(ds, tank.id, { name: 'Twelve rasboras', events: [{ type: 'add-fish', day: 2, fish: [{ species: 'harlequin-rasbora', count: 12 }] }] });
     const unshared = await createPlan(ds, tank.id, { name: 'Private' });
     const member = await signedIn('member-a@example.org');
     const share = (await member.post(`/api/clubs/${a.id}/shares`, { itemType: 'plan', itemId: plan.id }).expect(201)).body;
