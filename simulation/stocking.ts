@@ -52,9 +52,9 @@ export function stockingWarning(fishMassG: number, volumeL: number, volume = `${
   if (level === 'usual') return null;
   if (level === 'absurd') return absurdStockingMessage(fishMassG, volumeL, volume);
   const times = gPerL / HEAVY_STOCKING_G_PER_L;
-  const howFar = times >= 2 ? `about ${formatFigure(times)} times` : 'more than';
+  const howFar = times >= 2 ? `over ${Math.floor(times)} times` : 'more than';
   return (
-    `Very crowded: these fish would weigh about ${massWords(fishMassG)} in ${volume}, ${howFar} what home tanks usually carry (common practice). ` +
+    `These fish would weigh about ${massWords(fishMassG)} in ${volume}, ${howFar} the most that home tanks usually carry (common practice). ` +
     'Fish this crowded tend to run short of oxygen and foul the water faster than any forecast shows. Check the count and the tank size, or plan fewer fish.'
   );
 }

@@ -204,10 +204,10 @@ function FishRows({
                 />
               </View>
               {shape === 'sized' ? (
-                <View style={{ flexGrow: 1, flexBasis: 140 }}>
+                <View style={{ flexGrow: 1, flexBasis: 110 }}>
                   <TextField
-                    label={own ? 'Length (cm)' : 'Length (cm, optional)'}
-                    hint={own ? 'Give the length or the mass.' : known ? `Empty: a typical adult, about ${known.adultLengthCm} cm` : undefined}
+                    label="Length (cm)"
+                    placeholder={known ? `about ${known.adultLengthCm}` : undefined}
                     value={fields[groupKey(i, 'lengthCm')] ?? ''}
                     onChangeText={(v) => onSet(groupKey(i, 'lengthCm'), v)}
                     keyboardType="decimal-pad"
@@ -218,10 +218,9 @@ function FishRows({
                 </View>
               ) : null}
               {shape === 'sized' && (own || (fields[groupKey(i, 'massG')] ?? '') !== '') ? (
-                <View style={{ flexGrow: 1, flexBasis: 140 }}>
+                <View style={{ flexGrow: 1, flexBasis: 110 }}>
                   <TextField
-                    label="Mass of one fish (g)"
-                    hint="If you know it instead of the length."
+                    label="Mass of one (g)"
                     value={fields[groupKey(i, 'massG')] ?? ''}
                     onChangeText={(v) => onSet(groupKey(i, 'massG'), v)}
                     keyboardType="decimal-pad"
@@ -232,6 +231,13 @@ function FishRows({
                 </View>
               ) : null}
             </View>
+            {shape === 'sized' && (own || known) ? (
+              <AppText variant="caption" tone="textMuted">
+                {known
+                  ? `Length is optional: left empty, a typical adult of about ${known.adultLengthCm} cm (approximate).`
+                  : 'Your own fish: give its length or the mass of one, so its waste can be estimated.'}
+              </AppText>
+            ) : null}
             {n > 1 ? (
               <Button
                 label="Take this fish off the event"

@@ -110,7 +110,7 @@ function AddLivestock({ tankId, volumeL, livestock }: { tankId: string; volumeL:
         </View>
         <View style={{ flexGrow: 1, flexBasis: 120 }}>
           <TextField
-            label={custom ? 'Length (cm)' : 'Length now (cm, optional)'}
+            label="Length (cm)"
             testID="livestock-length"
             value={length}
             onChangeText={setLength}
