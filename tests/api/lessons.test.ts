@@ -88,7 +88,7 @@ describe('lessons', () => {
     const mentor = await signedIn('mentor-a@example.org');
     const made = lessonDetailSchema.parse((await mentor.post(`/api/clubs/${a.id}/lessons`, { title: 'From Mira’s plan', fromShareId: share.id, steps }).expect(201)).body);
     expect(made.scenario.tank.volumeL).toBe(120);
-    expect(made.scenario.events).toEqual([{ type: 'add-fish', day: 2, fish: { species: 'harlequin-rasbora', count: 12 } }]);
+    expect(made.scenario.events).toEqual([{ type: 'add-fish', day: 2, fish: [{ species: 'harlequin-rasbora', count: 12 }] }]);
     expect(made.scenario.fish).toEqual([]);
     // An id that is not a share of this club (e.g. the plan id itself) is 404.
     await mentor.post(`/api/clubs/${a.id}/lessons`, { title: 'Private plan', fromShareId: unshared.id, steps }).expect(404);
