@@ -234,7 +234,7 @@ function FishRows({
             {shape === 'sized' && (own || known) ? (
               <AppText variant="caption" tone="textMuted">
                 {known
-                  ? `Length is optional: left empty, a typical adult of about ${known.adultLengthCm} cm (approximate).`
+                  ? 'Leave the length empty for a typical adult.'
                   : 'Your own fish: give its length or the mass of one, so its waste can be estimated.'}
               </AppText>
             ) : null}
