@@ -117,12 +117,20 @@ const fishCount = z
 /** Most kinds of fish one fish event names (a shop visit rarely brings more) [practice]. */
 export const MAX_GROUPS_PER_EVENT = 20;
 
+/** A catalogue id (simulation/catalogue.ts), e.g. "neon-tetra". */
+const speciesId = z.string().min(1, 'Choose a species.');
+/** The keeper's own name for a fish (a custom animal, or a label for a catalogue group). */
+const ownName = z.string().min(1, 'Give the fish a name.').max(80, 'At most 80 characters.');
+
+/** The groups of one fish event: at least one, at most MAX_GROUPS_PER_EVENT. */
+function groupList<T extends z.ZodType>(group: T) {
+  return z.array(group).min(1, 'Name at least one kind of fish.').max(MAX_GROUPS_PER_EVENT, `At most ${MAX_GROUPS_PER_EVENT} kinds of fish in one event.`);
+}
+
 export const fishGroupSchema = z
   .object({
-    /** Catalogue id (see simulation/catalogue.ts), e.g. "neon-tetra". */
-    species: z.string().min(1, 'Choose a species.').optional(),
-    /** Name of a custom animal, or a label for a catalogue group. */
-    name: z.string().min(1, 'Give the fish a name.').max(80, 'At most 80 characters.').optional(),
+    species: speciesId.optional(),
+    name: ownName.optional(),
     count: fishCount,
     lengthCm: z.number({ error: 'Enter the length in cm as a number.' }).gt(0, 'Length must be above 0 cm.').max(200, 'At most 200 cm.').optional(),
     shape: z.enum(SHAPE_CLASS_IDS).optional(),
@@ -138,19 +146,15 @@ export const fishGroupSchema = z
  * The fish of one add or move event: a list of groups (10 neon tetras and 6 corydoras). A
  * single group, the format before several were allowed, is still read and becomes a list of one.
  */
-const fishGroupsSchema = z.union([
-  z
-    .array(fishGroupSchema)
-    .min(1, 'Name at least one kind of fish.')
-    .max(MAX_GROUPS_PER_EVENT, `At most ${MAX_GROUPS_PER_EVENT} kinds of fish in one event.`),
-  fishGroupSchema.transform((g) => [g]),
-], { error: 'List the fish: each kind with its species or name and its count.' });
+const fishGroupsSchema = z.union([groupList(fishGroupSchema), fishGroupSchema.transform((g) => [g])], {
+  error: 'List the fish: each kind with its species or name and its count.',
+});
 
 /** Fish leaving: which (catalogue species or the keeper's own name) and how many. */
 export const removalGroupSchema = z
   .object({
-    species: z.string().min(1, 'Choose a species.').optional(),
-    name: z.string().min(1, 'Give the fish a name.').max(80, 'At most 80 characters.').optional(),
+    species: speciesId.optional(),
+    name: ownName.optional(),
     count: fishCount,
   })
   .refine((f) => f.species !== undefined || f.name !== undefined, { message: 'Say which fish: species or name.', path: ['species'] });
@@ -180,13 +184,9 @@ const removalEvent = z
   .object({
     type: z.literal('remove-fish'),
     day,
-    fish: z
-      .array(removalGroupSchema)
-      .min(1, 'Name at least one kind of fish.')
-      .max(MAX_GROUPS_PER_EVENT, `At most ${MAX_GROUPS_PER_EVENT} kinds of fish in one event.`)
-      .optional(),
-    species: z.string().min(1, 'Choose a species.').optional(),
-    name: z.string().min(1, 'Give the fish a name.').max(80, 'At most 80 characters.').optional(),
+    fish: groupList(removalGroupSchema).optional(),
+    species: speciesId.optional(),
+    name: ownName.optional(),
     count: fishCount.optional(),
   })
   .superRefine((e, ctx) => {
