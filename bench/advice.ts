@@ -59,7 +59,7 @@ const tank = {
 const mature = parseScenario({ tank, start: { kind: 'mature' }, fish: [{ species: 'platy', count: 10 }] });
 time('fastest safe schedule, 40 platies', 150, 7, () => fastestSafeSchedule({ scenario: mature, fish: { species: 'platy', count: 40 } }));
 
-const withAddition = { ...mature, events: [{ type: 'add-fish' as const, day: 0, fish: { species: 'platy', count: 40 } }] };
+const withAddition = { ...mature, events: [{ type: 'add-fish' as const, day: 0, fish: [{ species: 'platy', count: 40 }] }] };
 time('64-member ensemble, 60-day forecast (daily output)', 100, 7, () => runEnsemble(withAddition, { members: 64 }, { horizonDays: 60, stepDays: 1 }));
 
 // A new 100 L tank cycled with 1 mg N/L a day; 30 readings (TAN and nitrite) every 1.5 days.

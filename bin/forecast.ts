@@ -33,8 +33,10 @@ simulation/scenario.ts for every field, default and limit):
   initialWater?: {tanMgN?, no2MgN?, no3MgN?, orgMgN?}
   fish?:    [{species? (catalogue id) | name, count, lengthCm?, shape?, massG?}]
   feeding?: {mode:"body-mass", percentPerDay?, proteinShare?} | {mode:"grams", gramsPerDay, proteinShare?}
-  events?:  add-fish {day, fish} · remove-fish {day, species|name, count}
-            · move-fish {day, direction:"in"|"out", fish} · feeding {day, feeding}
+  events?:  add-fish {day, fish:[group, …]} · remove-fish {day, fish:[{species|name, count}, …]}
+            · move-fish {day, direction:"in"|"out", otherTank?, fish:[group, …]} · feeding {day, feeding}
+            (a fish group as under fish?, at most 20 per event; the older one-group forms
+             fish:{…} and remove-fish {day, species|name, count} are still read)
             · water-change {day, percent} · temperature {day, temperatureC}
             · ammonia-dose {day, amount:{unit:"mgN-per-L", value} | {unit:"ammonium-chloride-g", grams}
                             | {unit:"ammonia-solution-mL", mL, percentNH3, densityGPerMl?},

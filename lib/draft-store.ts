@@ -42,12 +42,22 @@ export function sortEvents(events: readonly ScenarioEvent[]): ScenarioEvent[] {
   return [...events].sort(byDay);
 }
 
+const kindKey = (g: { species?: string; name?: string }) => g.species ?? g.name ?? '';
+
 /**
- * The plan's events with every add-fish event replaced by a schedule's (advice "apply this
- * schedule"); other events stay.
+ * The plan's events with the scheduled fish's additions replaced by the schedule's (advice
+ * "apply this schedule"): the scheduled kinds leave every add-fish event (an event left with no
+ * fish goes), other kinds and other events stay.
  */
 export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] {
-  return sortEvents([...events.filter((e) => e.type !== 'add-fish'), ...schedule.filter((e) => e.type === 'add-fish')]);
+  const adds = schedule.filter((e) => e.type === 'add-fish');
+  const scheduled = new Set(adds.flatMap((e) => e.fish.map(kindKey)));
+  const kept = events.flatMap((e): ScenarioEvent[] => {
+    if (e.type !== 'add-fish') return [e];
+    const fish = e.fish.filter((g) => !scheduled.has(kindKey(g)));
+    return fish.length === e.fish.length ? [e] : fish.length ? [{ ...e, fish }] : [];
+  });
+  return sortEvents([...kept, ...adds]);
 }
 
 export const useDraftStore = create<DraftState>((set) => {

@@ -9,9 +9,10 @@ export function fishOnDay(startCount: number, events: readonly ScenarioEvent[], 
   let n = startCount;
   for (const e of events) {
     if (e.day > day) continue;
-    if (e.type === 'add-fish') n += e.fish.count;
-    else if (e.type === 'move-fish') n += e.direction === 'in' ? e.fish.count : -e.fish.count;
-    else if (e.type === 'remove-fish') n -= e.count;
+    const count = e.type === 'add-fish' || e.type === 'move-fish' || e.type === 'remove-fish' ? e.fish.reduce((sum, g) => sum + g.count, 0) : 0;
+    if (e.type === 'add-fish') n += count;
+    else if (e.type === 'move-fish') n += e.direction === 'in' ? count : -count;
+    else if (e.type === 'remove-fish') n -= count;
   }
   return Math.max(0, n);
 }

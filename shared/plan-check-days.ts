@@ -31,6 +31,11 @@ export const AFTER_NEW_LOAD = [1, 2, 3, 5, 7, 10, 14] as const;
 /** Days after a smaller change (feeding, temperature, fewer fish). */
 export const AFTER_SMALL_CHANGE = [2, 5, 9] as const;
 
+/** How many animals an event's groups hold together. */
+export function fishCount(groups: readonly { count: number }[]): number {
+  return groups.reduce((n, g) => n + g.count, 0);
+}
+
 function fishWords(count: number): string {
   return count === 1 ? '1 fish' : `${count} fish`;
 }
@@ -39,10 +44,10 @@ function fishWords(count: number): string {
 function checksFor(e: ScenarioEvent): [number, string][] {
   switch (e.type) {
     case 'add-fish':
-      return AFTER_NEW_LOAD.map((k) => [e.day + k, `${fishWords(e.fish.count)} added on day ${e.day}`]);
+      return AFTER_NEW_LOAD.map((k) => [e.day + k, `${fishWords(fishCount(e.fish))} added on day ${e.day}`]);
     case 'move-fish':
       return e.direction === 'in'
-        ? AFTER_NEW_LOAD.map((k) => [e.day + k, `${fishWords(e.fish.count)} moved in on day ${e.day}`])
+        ? AFTER_NEW_LOAD.map((k) => [e.day + k, `${fishWords(fishCount(e.fish))} moved in on day ${e.day}`])
         : AFTER_SMALL_CHANGE.map((k) => [e.day + k, `fish moved out on day ${e.day}: the biofilter shrinks to the smaller load`]);
     case 'remove-fish':
       return AFTER_SMALL_CHANGE.map((k) => [e.day + k, `fish rehomed on day ${e.day}: the biofilter shrinks to the smaller load`]);

@@ -4,10 +4,30 @@
  * `fields` map (shared/api-error.ts).
  */
 
+interface Issue {
+  path: PropertyKey[];
+  message: string;
+  code?: string;
+  errors?: readonly (readonly Issue[])[];
+}
+
+/**
+ * A union's issues as the one option that matched the input's type would give them (a single
+ * fish group where a list is also accepted), so the message names the field inside; otherwise
+ * the union's own issue.
+ */
+function unionIssues(issue: Issue): readonly Issue[] {
+  if (issue.code !== 'invalid_union' || !issue.errors) return [issue];
+  const typeMismatch = (list: readonly Issue[]) => list.length === 1 && list[0]!.code === 'invalid_type' && list[0]!.path.length === 0;
+  const fitting = issue.errors.filter((list) => list.length > 0 && !typeMismatch(list));
+  if (fitting.length !== 1) return [issue];
+  return fitting[0]!.flatMap((inner) => unionIssues({ ...inner, path: [...issue.path, ...inner.path] }));
+}
+
 /** Turns zod issues into a `fields` map: dot-joined path (`_` for the root) → first message. */
-export function fieldErrors(issues: readonly { path: PropertyKey[]; message: string }[]): Record<string, string> {
+export function fieldErrors(issues: readonly Issue[]): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const issue of issues) {
+  for (const issue of issues.flatMap(unionIssues)) {
     const key = issue.path.map(String).join('.') || '_';
     if (!(key in out)) out[key] = issue.message;
   }

@@ -114,22 +114,57 @@ export const tankSchema = z
     }
   });
 
+/** How many animals of one kind; a missing or unreadable count says so in words. */
+const fishCount = z
+  .number({ error: (issue) => (issue.input === undefined ? 'Say how many.' : 'Enter how many as a whole number.') })
+  .int('Count must be a whole number.')
+  .min(1, 'Count must be at least 1.')
+  .max(100000, 'At most 100 000 fish in one group.');
+
+/** Most kinds of fish one fish event names (a shop visit rarely brings more) [practice]. */
+export const MAX_GROUPS_PER_EVENT = 20;
+
+/** A catalogue id (simulation/catalogue.ts), e.g. "neon-tetra". */
+const speciesId = z.string().min(1, 'Choose a species.');
+/** The keeper's own name for a fish (a custom animal, or a label for a catalogue group). */
+const ownName = z.string().min(1, 'Give the fish a name.').max(80, 'At most 80 characters.');
+
+/** The groups of one fish event: at least one, at most MAX_GROUPS_PER_EVENT. */
+function groupList<T extends z.ZodType>(group: T) {
+  return z.array(group).min(1, 'Name at least one kind of fish.').max(MAX_GROUPS_PER_EVENT, `At most ${MAX_GROUPS_PER_EVENT} kinds of fish in one event.`);
+}
+
 export const fishGroupSchema = z
   .object({
-    /** Catalogue id (see simulation/catalogue.ts), e.g. "neon-tetra". */
-    species: z.string().min(1).optional(),
-    /** Name of a custom animal, or a label for a catalogue group. */
-    name: z.string().min(1).max(80).optional(),
-    count: z.number().int('Count must be a whole number.').min(1, 'Count must be at least 1.').max(100000),
-    lengthCm: z.number().gt(0, 'Length must be above 0 cm.').max(200).optional(),
+    species: speciesId.optional(),
+    name: ownName.optional(),
+    count: fishCount,
+    lengthCm: z.number({ error: 'Enter the length in cm as a number.' }).gt(0, 'Length must be above 0 cm.').max(200, 'At most 200 cm.').optional(),
     shape: z.enum(SHAPE_CLASS_IDS).optional(),
-    massG: z.number().gt(0, 'Mass must be above 0 g.').max(100000).optional(),
+    massG: z.number({ error: 'Enter the mass in g as a number.' }).gt(0, 'Mass must be above 0 g.').max(100000, 'At most 100 kg a fish.').optional(),
   })
-  .refine((f) => f.species !== undefined || f.name !== undefined, { message: 'Give a species or a name.', path: ['species'] })
+  .refine((f) => f.species !== undefined || f.name !== undefined, { message: 'Choose a species or name your own fish.', path: ['species'] })
   .refine((f) => f.species !== undefined || f.lengthCm !== undefined || f.massG !== undefined, {
-    message: 'A custom animal needs lengthCm or massG.',
+    message: 'A fish not in the catalogue needs its length or its mass.',
     path: ['lengthCm'],
   });
+
+/**
+ * The fish of one add or move event: a list of groups (10 neon tetras and 6 corydoras). A
+ * single group, the format before several were allowed, is still read and becomes a list of one.
+ */
+const fishGroupsSchema = z.union([groupList(fishGroupSchema), fishGroupSchema.transform((g) => [g])], {
+  error: 'List the fish: each kind with its species or name and its count.',
+});
+
+/** Fish leaving: which (catalogue species or the keeper's own name) and how many. */
+export const removalGroupSchema = z
+  .object({
+    species: speciesId.optional(),
+    name: ownName.optional(),
+    count: fishCount,
+  })
+  .refine((f) => f.species !== undefined || f.name !== undefined, { message: 'Say which fish: species or name.', path: ['species'] });
 
 const proteinShare = z.number().gt(0, 'Protein share must be above 0.').max(0.8, 'Protein share is a fraction (0.45 = 45 %).');
 export const feedingSchema = z.discriminatedUnion('mode', [
@@ -189,22 +224,37 @@ export const ammoniaDoseSchema = z
     }
   });
 
-const removal = {
-  day,
-  species: z.string().min(1).optional(),
-  name: z.string().min(1).optional(),
-  count: z.number().int('Count must be a whole number.').min(1, 'Count must be at least 1.').max(100000),
-};
+/**
+ * A removal: `fish`, a list of groups; or, the format before several were allowed (still read),
+ * one group as `species`/`name` and `count` on the event itself.
+ */
+const removalEvent = z
+  .object({
+    type: z.literal('remove-fish'),
+    day,
+    fish: groupList(removalGroupSchema).optional(),
+    species: speciesId.optional(),
+    name: ownName.optional(),
+    count: fishCount.optional(),
+  })
+  .superRefine((e, ctx) => {
+    const single = e.species !== undefined || e.name !== undefined || e.count !== undefined;
+    if (e.fish !== undefined && single) ctx.addIssue({ code: 'custom', message: 'Give the fish as a list, or one species with its count, not both.', path: ['fish'] });
+    if (e.fish !== undefined) return;
+    if (e.species === undefined && e.name === undefined) ctx.addIssue({ code: 'custom', message: 'Say which fish: species or name.', path: ['fish'] });
+    else if (e.count === undefined) ctx.addIssue({ code: 'custom', message: 'Say how many.', path: ['count'] });
+  });
 
-export const eventSchema = z.discriminatedUnion('type', [
-  z.object({ type: z.literal('add-fish'), day, fish: fishGroupSchema }),
-  z.object({ type: z.literal('remove-fish'), ...removal }),
+/** Every event kind as written; `eventSchema` below is what the engine reads. */
+export const eventShapesSchema = z.discriminatedUnion('type', [
+  z.object({ type: z.literal('add-fish'), day, fish: fishGroupsSchema }),
+  removalEvent,
   z.object({
     type: z.literal('move-fish'),
     direction: z.enum(['in', 'out']),
     otherTank: z.string().max(80).optional(),
     day,
-    fish: fishGroupSchema,
+    fish: fishGroupsSchema,
   }),
   z.object({ type: z.literal('feeding'), day, feeding: feedingSchema }),
   z.object({ type: z.literal('water-change'), day, percent: z.number().gt(0, 'Percent must be above 0.').max(100, 'At most 100 %.') }),
@@ -234,6 +284,20 @@ export const eventSchema = z.discriminatedUnion('type', [
     oxygenShare: share,
   }),
 ]);
+
+type EventShape = z.output<typeof eventShapesSchema>;
+type RemovalGroup = z.output<typeof removalGroupSchema>;
+type NormalEvent = Exclude<EventShape, { type: 'remove-fish' }> | { type: 'remove-fish'; day: number; fish: RemovalGroup[] };
+
+/** One shape per kind: a removal always lists its groups (`fish`), whichever format it came in. */
+function normalEvent(e: EventShape): NormalEvent {
+  if (e.type !== 'remove-fish') return e;
+  const { type, day, fish, species, name, count } = e;
+  return { type, day, fish: fish ?? [{ ...(species !== undefined ? { species } : {}), ...(name !== undefined ? { name } : {}), count: count ?? 0 }] };
+}
+
+/** A timeline event; fish events carry a list of groups (`fish`), each with its count. */
+export const eventSchema = eventShapesSchema.transform(normalEvent);
 
 export const startSchema = z.discriminatedUnion('kind', [
   /** A new, unseeded tank: each population starts at a small inoculum. */
@@ -296,9 +360,6 @@ export const scenarioSchema = z
       if (e.type === 'filter-clean' && !ids.has(e.zoneId)) {
         ctx.addIssue({ code: 'custom', message: `No zone "${e.zoneId}" in this tank.`, path: ['events', i, 'zoneId'] });
       }
-      if (e.type === 'remove-fish' && e.species === undefined && e.name === undefined) {
-        ctx.addIssue({ code: 'custom', message: 'Say which fish: species or name.', path: ['events', i, 'species'] });
-      }
       if (s.horizonDays !== undefined && e.day > s.horizonDays) {
         ctx.addIssue({ code: 'custom', message: `Day ${e.day} is after the forecast horizon (${s.horizonDays}).`, path: ['events', i, 'day'] });
       }
@@ -318,6 +379,7 @@ export type PlantingLevel = (typeof PLANTING_LEVELS)[number];
 export type ShapeClassId = (typeof SHAPE_CLASS_IDS)[number];
 export type Tank = z.output<typeof tankSchema>;
 export type FishGroup = z.output<typeof fishGroupSchema>;
+export type FishRemoval = z.output<typeof removalGroupSchema>;
 export type FeedingInput = z.output<typeof feedingSchema>;
 export type DoseAmount = z.output<typeof doseAmountSchema>;
 export type ScenarioEvent = z.output<typeof eventSchema>;

@@ -8,6 +8,8 @@
 import { ScenarioError, type AmmoniaDoseEvent, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
 import { fishMassG } from './bioload';
 import { findSpecies } from './catalogue';
+import { FishLedger, fishKey } from './fish-ledger';
+import { absurdStockingMessage, stockingLevel } from './stocking';
 import { ammoniaSolutionToMgNPerL, ammoniumChlorideToMgNPerL } from './dosing';
 import type { Parameters } from './parameters';
 
@@ -90,42 +92,33 @@ export function doseParts(event: AmmoniaDoseEvent, horizonDays: number): DosePar
   return parts;
 }
 
-interface Group {
-  key: string;
-  massG: number;
-  count: number;
-}
-
-function groupKey(f: { species?: string; name?: string }): string {
-  return f.species ?? f.name ?? '';
-}
-
 function massOf(f: FishGroup, path: string, b: number): number {
   if (f.species !== undefined && !findSpecies(f.species)) {
-    throw new ScenarioError({ [`${path}.species`]: `Unknown species "${f.species}"; use a catalogue id or a custom name with lengthCm.` });
+    throw new ScenarioError({ [`${path}.species`]: `Unknown species "${f.species}"; choose one from the catalogue, or name your own fish and give its length.` });
   }
   return fishMassG(f, b);
 }
 
-function removeFrom(groups: Group[], key: string, count: number, path: string): void {
-  const available = groups.filter((g) => g.key === key).reduce((s, g) => s + g.count, 0);
-  if (available < count) {
-    throw new ScenarioError({ [`${path}.count`]: `Only ${available} of "${key}" in the tank at that time; cannot take out ${count}.` });
+function removeFrom(ledger: FishLedger, f: { species?: string; name?: string; count: number }, path: string): void {
+  const key = fishKey(f);
+  const available = ledger.available(key);
+  if (available < f.count) {
+    throw new ScenarioError({ [`${path}.count`]: `Only ${available} of "${key}" in the tank at that time; cannot take out ${f.count}.` });
   }
-  let left = count;
-  for (const g of groups) {
-    if (g.key !== key || left === 0) continue;
-    const take = Math.min(g.count, left);
-    g.count -= take;
-    left -= take;
-  }
+  ledger.remove(key, f.count);
 }
 
-const totalMass = (groups: Group[]) => groups.reduce((s, g) => s + g.count * g.massG, 0);
+/** Refuses fish that could not fit in the water at all (simulation/stocking.ts). */
+function checkFits(ledger: FishLedger, volumeL: number, path: string): void {
+  if (stockingLevel(ledger.massG(), volumeL).level === 'absurd') throw new ScenarioError({ [path]: absurdStockingMessage(ledger.massG(), volumeL) });
+}
 
 export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parameters): Timeline {
-  const groups: Group[] = scenario.fish.map((f, i) => ({ key: groupKey(f), massG: massOf(f, `fish.${i}`, p.lengthWeightB), count: f.count }));
-  const initialFishMassG = totalMass(groups);
+  const ledger = new FishLedger(p.lengthWeightB);
+  const V = scenario.tank.volumeL;
+  scenario.fish.forEach((f, i) => ledger.add(f, massOf(f, `fish.${i}`, p.lengthWeightB)));
+  if (scenario.fish.length > 0) checkFits(ledger, V, 'fish');
+  const initialFishMassG = ledger.massG();
 
   const raw: { time: number; order: number; action: TimelineAction }[] = [];
   scenario.events.forEach((event, index) => {
@@ -170,20 +163,23 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
     }
     bp.actions.push(item.action);
     if (item.action.kind !== 'event') {
-      bp.fishMassG = totalMass(groups);
+      bp.fishMassG = ledger.massG();
       continue;
     }
     const { event, index } = item.action;
     const path = `events.${index}`;
     if (event.type === 'add-fish' || (event.type === 'move-fish' && event.direction === 'in')) {
-      groups.push({ key: groupKey(event.fish), massG: massOf(event.fish, `${path}.fish`, p.lengthWeightB), count: event.fish.count });
+      event.fish.forEach((f, g) => ledger.add(f, massOf(f, `${path}.fish.${g}`, p.lengthWeightB)));
+      checkFits(ledger, V, `${path}.fish`);
     } else if (event.type === 'move-fish') {
-      massOf(event.fish, `${path}.fish`, p.lengthWeightB);
-      removeFrom(groups, groupKey(event.fish), event.fish.count, `${path}.fish`);
+      event.fish.forEach((f, g) => {
+        massOf(f, `${path}.fish.${g}`, p.lengthWeightB);
+        removeFrom(ledger, f, `${path}.fish.${g}`);
+      });
     } else if (event.type === 'remove-fish') {
-      removeFrom(groups, groupKey(event), event.count, path);
+      event.fish.forEach((f, g) => removeFrom(ledger, f, `${path}.fish.${g}`));
     }
-    bp.fishMassG = totalMass(groups);
+    bp.fishMassG = ledger.massG();
   }
   return { initialFishMassG, breakpoints };
 }

@@ -136,15 +136,21 @@ export function moveStep(steps: readonly LessonStepForm[], index: number, by: -1
 export function splitAdditions(events: readonly ScenarioEvent[], batches: number, everyDays: number): ScenarioEvent[] {
   const out: ScenarioEvent[] = [];
   for (const e of events) {
-    if (e.type !== 'add-fish' || batches < 2 || e.fish.count < 2) {
+    const most = e.type === 'add-fish' ? Math.max(...e.fish.map((g) => g.count)) : 0;
+    if (e.type !== 'add-fish' || batches < 2 || most < 2) {
       out.push(structuredClone(e));
       continue;
     }
-    const n = Math.min(batches, e.fish.count);
-    const base = Math.floor(e.fish.count / n);
-    const extra = e.fish.count % n;
+    // Each kind of fish is split on its own; a batch carries every kind that still has fish.
+    const n = Math.min(batches, most);
     for (let i = 0; i < n; i++) {
-      out.push({ ...structuredClone(e), day: e.day + i * everyDays, fish: { ...structuredClone(e.fish), count: base + (i < extra ? 1 : 0) } });
+      const fish = e.fish
+        .map((g) => {
+          const k = Math.min(n, g.count);
+          return { ...structuredClone(g), count: i < k ? Math.floor(g.count / k) + (i < g.count % k ? 1 : 0) : 0 };
+        })
+        .filter((g) => g.count > 0);
+      out.push({ ...structuredClone(e), day: e.day + i * everyDays, fish });
     }
   }
   return out.map((e, i) => ({ e, i })).sort((a, b) => a.e.day - b.e.day || a.i - b.i).map(({ e }) => e);

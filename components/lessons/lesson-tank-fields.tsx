@@ -1,7 +1,6 @@
-import { useState } from 'react';
 import { View } from 'react-native';
 import type { Preferences } from '@/shared/schemas/preferences';
-import { CATALOGUE, findSpecies } from '@/simulation/catalogue';
+import { findSpecies } from '@/simulation/catalogue';
 import { useTheme } from '@/hooks/use-theme';
 import { TEMPERATURE_UNIT_LABEL, VOLUME_UNIT_LABEL } from '@/lib/units-format';
 import { TextField } from '@/components/ui/text-field';
@@ -9,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { AppText } from '@/components/ui/text';
 import { ChoiceGroup } from '@/components/settings/choice-group';
 import { FILTER_KIND_CHOICES } from '@/components/tanks/tank-form-model';
-import { searchCatalogue } from '@/components/tanks/catalogue-search';
+import { NO_SPECIES, SpeciesPicker } from '@/components/tanks/species-picker';
 import type { LessonFormErrors, LessonTankForm } from './lesson-builder-model';
 
 const SUBSTRATE_LABELS = [
@@ -43,9 +42,7 @@ export function LessonTankFields({
   units: Preferences;
 }) {
   const { space } = useTheme();
-  const [query, setQuery] = useState('');
   const set = (key: 'volume' | 'temperature' | 'ph' | 'kh' | 'waterChangePercent' | 'waterChangeEveryDays') => (text: string) => onChange({ [key]: text }, `tank.${key}`);
-  const hits = query.trim().length >= 2 ? searchCatalogue(CATALOGUE, query).slice(0, 5) : [];
   const setRow = (i: number, count: string) => onChange({ fish: tank.fish.map((r, j) => (j === i ? { ...r, count } : r)) }, `tank.fish.${i}.count`);
 
   return (
@@ -113,24 +110,15 @@ export function LessonTankFields({
             </View>
           );
         })}
-        <TextField label="Add a species" hint="Type part of a name, then pick it." testID="lesson-fish-search" value={query} onChangeText={setQuery} autoCapitalize="none" autoCorrect={false} />
-        {hits.length > 0 ? (
-          <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }}>
-            {hits.map((c) => (
-              <Button
-                key={c.id}
-                variant="secondary"
-                label={c.commonName}
-                accessibilityLabel={`Add ${c.commonName} to the tank`}
-                onPress={() => {
-                  onChange({ fish: [...tank.fish, { species: c.id, count: NEW_ROW_COUNT }] }, 'tank.fish');
-                  setQuery('');
-                }}
-                testID={`lesson-fish-pick-${c.id}`}
-              />
-            ))}
-          </View>
-        ) : null}
+        <SpeciesPicker
+          label="Add a species"
+          value={NO_SPECIES}
+          allowCustom={false}
+          onChange={(c) => {
+            if (c.speciesId) onChange({ fish: [...tank.fish, { species: c.speciesId, count: NEW_ROW_COUNT }] }, 'tank.fish');
+          }}
+          testID="lesson-fish-picker"
+        />
       </View>
     </View>
   );

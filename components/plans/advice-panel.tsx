@@ -17,7 +17,7 @@ import { TextField } from '@/components/ui/text-field';
 import { CautionsList } from '@/components/forecast/cautions-list';
 import { FitToTests } from '@/components/tanks/fit-to-tests';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
-import { findSpecies } from '@/simulation/catalogue';
+import { fishName } from '@/components/plans/fish-groups';
 
 type Outcome = z.infer<typeof planOutcomeSchema>;
 
@@ -36,13 +36,13 @@ export interface AdvicePanelProps {
   onApplySchedule(schedule: ScenarioEvent[]): void;
 }
 
-/** The fish the plan adds: species and length of its first add event, the total count of that species. */
+/** The fish the plan adds: the first kind of its first add event, with the plan's total of that kind. */
 export function plannedAddition(events: readonly ScenarioEvent[]) {
-  const adds = events.filter((e): e is Extract<ScenarioEvent, { type: 'add-fish' }> => e.type === 'add-fish');
-  if (adds.length === 0) return null;
-  const first = adds[0].fish;
-  const same = adds.filter((e) => e.fish.species === first.species && e.fish.name === first.name);
-  return { ...first, count: same.reduce((n, e) => n + e.fish.count, 0) };
+  const groups = events.flatMap((e) => (e.type === 'add-fish' ? e.fish : []));
+  if (groups.length === 0) return null;
+  const first = groups[0];
+  const same = groups.filter((g) => g.species === first.species && g.name === first.name);
+  return { ...first, count: same.reduce((n, g) => n + g.count, 0) };
 }
 
 function Words({ lines, testID }: { lines: readonly string[]; testID?: string }) {
@@ -89,10 +89,10 @@ function AdditionAdvice({ tank, planId, events, onApplySchedule }: AdvicePanelPr
   if (!fish) return <AppText tone="textMuted">This plan adds no fish. Add an “Add fish” event to ask how fast it can go.</AppText>;
   const data = advice.data;
   const labels = Object.fromEntries((data?.limits ?? []).map((l) => [l.key, l.label]));
-  const fishName = (fish.species && findSpecies(fish.species)?.commonName) || fish.name || fish.species;
+  const name = fishName(fish.species, fish.name);
   return (
     <Section testID="advice-addition">
-      <AppText>{`How fast can ${fish.count} ${fishName} go in without a spike? The plan's other saved events (water changes, doses) stay.`}</AppText>
+      <AppText>{`How fast can ${fish.count} ${name} go in without a spike? The plan's other saved events (water changes, doses) stay.`}</AppText>
       <Button
         label="How fast can it go?"
         busy={advice.isPending}

@@ -31,16 +31,18 @@ export function eventToFields(e: ScenarioEvent): EventFields {
 export function fieldsToEvent(type: EventType, f: EventFields): { event: ScenarioEvent } | { errors: Record<string, string> } {
   const kind = EVENT_KINDS[type];
   const parsed = eventSchema.safeParse({ type, day: num(f.day), ...kind.fromFields(f) });
-  if (parsed.success) {
-    if (parsed.data.type === 'remove-fish' && !parsed.data.species && !parsed.data.name) return { errors: { species: 'Say which fish.' } };
-    return { event: parsed.data };
-  }
+  if (parsed.success) return { event: parsed.data };
+  return { errors: eventFieldErrors(type, fieldErrors(parsed.error.issues)) };
+}
+
+/** Messages keyed by an event's schema paths (`fish.0.count`, `amount.value`) → keyed by its form fields. */
+export function eventFieldErrors(type: EventType, byPath: Record<string, string>): Record<string, string> {
   const errors: Record<string, string> = {};
-  for (const [path, message] of Object.entries(fieldErrors(parsed.error.issues))) {
-    const field = kind.pathToField?.[path] ?? path;
+  for (const [path, message] of Object.entries(byPath)) {
+    const field = EVENT_KINDS[type].pathToField?.[path] ?? path;
     if (!(field in errors)) errors[field] = message;
   }
-  return { errors };
+  return errors;
 }
 
 /** One event in a sentence, e.g. "Add 4 Neon tetra". */

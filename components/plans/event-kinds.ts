@@ -5,8 +5,10 @@
  * compile (pure, no React Native).
  */
 import { MAX_DOSES_PER_DAY, type ScenarioEvent } from '@/simulation/scenario';
-import { findSpecies } from '@/simulation/catalogue';
 import { parseDecimal } from '@/lib/units-format';
+import { fieldsToGroups, groupsToFields, groupsWords, type GroupShape } from '@/components/plans/fish-groups';
+
+export { fishName } from '@/components/plans/fish-groups';
 
 export type EventType = ScenarioEvent['type'];
 export type EventOf<T extends EventType> = Extract<ScenarioEvent, { type: T }>;
@@ -25,8 +27,10 @@ export interface FieldSpec {
 
 export interface EventKind<T extends EventType> {
   label: string;
-  /** The form's fields after the day, in order. */
+  /** The form's fields after the day, in order (a fish event's group rows come after them). */
   fields: readonly FieldSpec[];
+  /** Fish events: the form shows group rows (`fish.N.*`, components/plans/fish-groups.ts) of this shape. */
+  groups?: GroupShape;
   /** A new event's starting text (the day is added by the caller). */
   blank: EventFields;
   toFields(e: EventOf<T>): EventFields;
@@ -39,8 +43,6 @@ export interface EventKind<T extends EventType> {
 }
 
 export const DAY_FIELD: FieldSpec = { key: 'day', label: 'Day', hint: 'Days from the plan start (0 = the first day)', numeric: true };
-const SPECIES: FieldSpec = { key: 'species', label: 'Species', hint: 'A catalogue species, e.g. neon-tetra, or your own name', numeric: false };
-const COUNT: FieldSpec = { key: 'count', label: 'How many', numeric: true };
 const LASTS: FieldSpec = { key: 'durationDays', label: 'Lasts (days)', numeric: true };
 
 const text = (x: number | string | undefined) => (x === undefined ? '' : String(x));
@@ -57,19 +59,6 @@ export function num(t: string | undefined): number | undefined {
 function share(t: string | undefined): number | undefined {
   const v = num(t);
   return v === undefined ? undefined : v / 100;
-}
-
-/** A typed fish name: a catalogue id when it is one, else the keeper's own name. */
-function fishFromFields(f: EventFields): { species?: string; name?: string; count?: number; lengthCm?: number } {
-  const name = (f.species ?? '').trim();
-  const known = findSpecies(name);
-  return { species: known ? name : undefined, name: known ? undefined : name || undefined, count: num(f.count), lengthCm: num(f.lengthCm) };
-}
-
-/** A fish as a keeper reads it: the catalogue's common name, else the keeper's own. */
-export function fishName(id: string | undefined, name: string | undefined): string {
-  if (id) return findSpecies(id)?.commonName ?? id;
-  return name ?? 'fish';
 }
 
 /** How the keeper gives a dose: the form's words for the engine's `delivery` and `timesPerDay`. */
@@ -116,38 +105,33 @@ function plainHours(h: number): string {
   return `${Number(h.toFixed(1))} h`;
 }
 
-const FISH_PATHS = { 'fish.count': 'count', 'fish.lengthCm': 'lengthCm', 'fish.species': 'species', 'fish.name': 'species', 'fish.massG': 'lengthCm' };
-
 export const EVENT_KINDS: { readonly [T in EventType]: EventKind<T> } = {
   'add-fish': {
     label: 'Add fish',
-    fields: [SPECIES, COUNT, { key: 'lengthCm', label: 'Length (cm)', hint: 'Optional for catalogue species', numeric: true }],
-    blank: { species: '', count: '' },
-    toFields: (e) => ({ species: e.fish.species ?? e.fish.name ?? '', count: text(e.fish.count), lengthCm: text(e.fish.lengthCm) }),
-    fromFields: (f) => ({ fish: fishFromFields(f) }),
-    pathToField: FISH_PATHS,
-    sentence: (e) => `Add ${e.fish.count} ${fishName(e.fish.species, e.fish.name)}`,
+    fields: [],
+    groups: 'sized',
+    blank: groupsToFields([]),
+    toFields: (e) => groupsToFields(e.fish),
+    fromFields: (f) => ({ fish: fieldsToGroups(f, 'sized') }),
+    sentence: (e) => `Add ${groupsWords(e.fish)}`,
   },
   'remove-fish': {
     label: 'Rehome fish',
-    fields: [SPECIES, COUNT],
-    blank: { species: '', count: '' },
-    toFields: (e) => ({ species: e.species ?? e.name ?? '', count: text(e.count) }),
-    fromFields: (f) => {
-      const fish = fishFromFields(f);
-      return { species: fish.species, name: fish.name, count: fish.count };
-    },
-    pathToField: { name: 'species' },
-    sentence: (e) => `Rehome ${e.count} ${fishName(e.species, e.name)}`,
+    fields: [],
+    groups: 'count-only',
+    blank: groupsToFields([]),
+    toFields: (e) => groupsToFields(e.fish),
+    fromFields: (f) => ({ fish: fieldsToGroups(f, 'count-only') }),
+    sentence: (e) => `Rehome ${groupsWords(e.fish)}`,
   },
   'move-fish': {
     label: 'Move fish',
-    fields: [{ key: 'direction', label: 'Direction', hint: 'in or out', numeric: false }, SPECIES, COUNT, { key: 'otherTank', label: 'Other tank', numeric: false }],
-    blank: { direction: 'in', species: '', count: '' },
-    toFields: (e) => ({ direction: e.direction, species: e.fish.species ?? e.fish.name ?? '', count: text(e.fish.count), otherTank: e.otherTank ?? '' }),
-    fromFields: (f) => ({ direction: (f.direction ?? '').trim(), otherTank: f.otherTank?.trim() || undefined, fish: fishFromFields(f) }),
-    pathToField: FISH_PATHS,
-    sentence: (e) => `Move ${e.fish.count} ${fishName(e.fish.species, e.fish.name)} ${e.direction === 'in' ? 'in from' : 'out to'} ${e.otherTank || 'another tank'}`,
+    fields: [{ key: 'direction', label: 'Direction', hint: 'in or out', numeric: false }, { key: 'otherTank', label: 'Other tank', numeric: false }],
+    groups: 'sized',
+    blank: { direction: 'in', ...groupsToFields([]) },
+    toFields: (e) => ({ direction: e.direction, otherTank: e.otherTank ?? '', ...groupsToFields(e.fish) }),
+    fromFields: (f) => ({ direction: (f.direction ?? '').trim(), otherTank: f.otherTank?.trim() || undefined, fish: fieldsToGroups(f, 'sized') }),
+    sentence: (e) => `Move ${groupsWords(e.fish)} ${e.direction === 'in' ? 'in from' : 'out to'} ${e.otherTank || 'another tank'}`,
   },
   feeding: {
     label: 'Feeding',

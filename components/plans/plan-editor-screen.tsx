@@ -13,7 +13,8 @@ import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
 import { applySchedule, useDraftStore } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
-import { basisWords, formatNitrogen } from '@/lib/units-format';
+import { basisWords, formatNitrogen, formatVolume } from '@/lib/units-format';
+import { livestockFish } from '@/components/tanks/livestock-stocking';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { ShareLinkPanel } from '@/components/share/share-link-panel';
@@ -31,11 +32,14 @@ import { CautionsList } from '@/components/forecast/cautions-list';
 import { planStatusLabel } from '@/components/tanks/tank-labels';
 import { AdvicePanel } from '@/components/plans/advice-panel';
 import { CountSlider } from '@/components/plans/count-slider';
-import { EventForm } from '@/components/plans/event-form';
+import { EventForm, type StockingContext } from '@/components/plans/event-form';
 import { fishOnDay } from '@/shared/fish-on-day';
+import { fishName } from '@/components/plans/fish-groups';
+import { planErrors } from '@/components/plans/plan-errors';
 import { EventTimeline } from '@/components/plans/event-timeline';
 
 const NO_EVENTS: ScenarioEvent[] = [];
+const NO_FIELDS: Record<string, string> = {};
 
 /** What the scenario builder needs of the tank page's data. */
 export function scenarioTankOf(tank: TankDetail): ScenarioTank {
@@ -106,24 +110,35 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const target = sliderTarget(events, selected);
   const targetEvent = target >= 0 ? (events[target] as Extract<ScenarioEvent, { type: 'add-fish' }>) : null;
   // The slider's range follows the saved plan, so it does not stretch while a finger drags it.
+  // The slider moves the event's first kind of fish.
+  const targetGroup = targetEvent?.fish[0] ?? null;
   const sliderMax = useMemo(
-    () => Math.max(60, ...saved.events.map((e) => (e.type === 'add-fish' ? 2 * e.fish.count : 0)), targetEvent?.fish.count ?? 0),
-    [saved.events, targetEvent?.fish.count],
+    () => Math.max(60, ...saved.events.map((e) => (e.type === 'add-fish' ? 2 * (e.fish[0]?.count ?? 0) : 0)), targetGroup?.count ?? 0),
+    [saved.events, targetGroup?.count],
   );
   const onSlide = useCallback(
     (count: number) => {
       const e = useDraftStore.getState().drafts[planId]?.events[target];
-      if (e?.type === 'add-fish') updateEvent(planId, target, { ...e, fish: { ...e.fish, count } });
+      if (e?.type === 'add-fish' && e.fish[0]) updateEvent(planId, target, { ...e, fish: [{ ...e.fish[0], count }, ...e.fish.slice(1)] });
     },
     [planId, target, updateEvent],
   );
+  const stocking = useMemo<StockingContext>(
+    () => ({ volumeL: tank.volumeL, volumeText: formatVolume(tank.volumeL, prefs.volumeUnit), startFish: livestockFish(tank.livestock), events }),
+    [tank.volumeL, tank.livestock, prefs.volumeUnit, events],
+  );
+  const tankSpecies = useMemo(() => tank.livestock.flatMap((l) => (l.speciesId ? [l.speciesId] : [])), [tank.livestock]);
 
   const onSave = () =>
     save.mutate(
       { name: draft?.name ?? saved.name, events },
       { onSuccess: (p) => markSaved(planId, p.updatedAt) },
     );
-  const saveErrors = save.error && isApiRequestError(save.error) ? save.error.fields : {};
+  const saveErrors = save.error && isApiRequestError(save.error) ? save.error.fields : NO_FIELDS;
+  // A refused save names events by path: the sentences say which event, the form shows the field.
+  const saveProblems = useMemo(() => planErrors(saveErrors, events, ['name']), [saveErrors, events]);
+  const liveProblems = useMemo(() => planErrors(live.fields ?? NO_FIELDS, events), [live.fields, events]);
+  const selectedErrors = selected !== null ? (saveProblems.byEvent[selected] ?? liveProblems.byEvent[selected]) : undefined;
 
   const headerCard = (
       <Card testID="plan-header">
@@ -139,8 +154,8 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const sliderCard = targetEvent ? (
         <Card testID="plan-slider-card">
           <CountSlider
-            label={`Fish added on day ${targetEvent.day}`}
-            value={targetEvent.fish.count}
+            label={`${fishName(targetGroup?.species, targetGroup?.name)} added on day ${targetEvent.day}`}
+            value={targetGroup?.count ?? 1}
             min={1}
             max={sliderMax}
             onChange={onSlide}
@@ -160,13 +175,16 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           onSubmit={(e) => (selected !== null ? updateEvent(planId, selected, e) : addEvent(planId, e))}
           onCancel={selected !== null ? () => select(planId, null) : undefined}
           fishOnDay={(day) => fishOnDay(tankFish, events, day)}
+          stocking={stocking}
+          preferredSpecies={tankSpecies}
+          initialErrors={selectedErrors}
         />
       </Card>
 
       <Card testID="plan-save">
         <TextField label="Plan name" value={draft?.name ?? saved.name} onChangeText={(v) => setName(planId, v)} error={saveErrors.name} testID="plan-name-field" />
         {save.isError ? (
-          <Banner tone="danger" title="Not saved" message={Object.entries(saveErrors).map(([k, v]) => `${k}: ${v}`).join(' ') || save.error.message} testID="plan-save-error" />
+          <Banner tone="danger" title="Not saved" message={saveProblems.sentences.join(' ') || (Object.keys(saveErrors).length ? undefined : save.error.message)} testID="plan-save-error" />
         ) : null}
         {save.isSuccess && !dirty ? <Banner tone="ok" title="Saved" message="The forecast now comes from the server, with its uncertainty band." testID="plan-saved" /> : null}
         <View style={{ flexDirection: 'row', gap: space.sm, flexWrap: 'wrap' }}>
@@ -196,7 +214,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       <Card testID="plan-forecast">
         <Heading level={2}>Forecast</Heading>
         {live.fields && !shownFromServer ? (
-          <Banner tone="watch" title="The forecast cannot run yet" message={Object.entries(live.fields).map(([k, v]) => `${k}: ${v}`).join(' ')} testID="forecast-refused" />
+          <Banner tone="watch" title="The forecast cannot run yet" message={`${liveProblems.sentences.join(' ')}${Object.keys(liveProblems.byEvent).length ? ' Open the event to fix it.' : ''}`} testID="forecast-refused" />
         ) : null}
         {server.isError && !dirty ? <Banner tone="watch" title="No saved forecast" message={server.error.message} testID="forecast-server-error" /> : null}
         {view ? (

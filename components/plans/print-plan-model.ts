@@ -91,9 +91,9 @@ export function fishLists(tank: Pick<TankDetail, 'livestock'>, plan: Pick<PlanDe
   const added = new Map<string, number>();
   const leaving = new Map<string, number>();
   for (const e of plan.events) {
-    if (e.type === 'add-fish') tally(added, fishName(e.fish.species, e.fish.name), e.fish.count);
-    else if (e.type === 'move-fish') tally(e.direction === 'in' ? added : leaving, fishName(e.fish.species, e.fish.name), e.fish.count);
-    else if (e.type === 'remove-fish') tally(leaving, fishName(e.species, e.name), e.count);
+    if (e.type !== 'add-fish' && e.type !== 'move-fish' && e.type !== 'remove-fish') continue;
+    const into = e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in') ? added : leaving;
+    for (const g of e.fish) tally(into, fishName(g.species, g.name), g.count);
   }
   return { now: lines(now), added: lines(added), leaving: lines(leaving) };
 }

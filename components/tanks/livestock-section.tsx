@@ -1,23 +1,22 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { View } from 'react-native';
 import type { LivestockItem } from '@/shared/schemas/tank';
-import { CATALOGUE } from '@/simulation/catalogue';
+import { findSpecies } from '@/simulation/catalogue';
 import { useAddLivestock, useRemoveLivestock, useUpdateLivestock } from '@/hooks/use-tanks';
 import { useTheme } from '@/hooks/use-theme';
 import { isApiRequestError } from '@/lib/api-client';
-import { parseDecimal, trimNumber } from '@/lib/units-format';
+import { usePreferences } from '@/hooks/use-preferences';
+import { formatVolume, parseDecimal, trimNumber } from '@/lib/units-format';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { AppText } from '@/components/ui/text';
-import { ChoiceGroup } from '@/components/settings/choice-group';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
-import { SpeciesChoices } from '@/components/tanks/species-choices';
-
-const MAX_RESULTS = 8;
+import { NO_SPECIES, SpeciesPicker, type SpeciesChoice } from '@/components/tanks/species-picker';
+import { livestockStocking } from '@/components/tanks/livestock-stocking';
 
 /** The tank's animals: change a count, remove a group, add from the catalogue or a custom fish. */
-export function LivestockSection({ tankId, livestock }: { tankId: string; livestock: readonly LivestockItem[] }) {
+export function LivestockSection({ tankId, volumeL, livestock }: { tankId: string; volumeL: number; livestock: readonly LivestockItem[] }) {
   const { space } = useTheme();
   const update = useUpdateLivestock(tankId);
   const remove = useRemoveLivestock(tankId);
@@ -42,23 +41,30 @@ export function LivestockSection({ tankId, livestock }: { tankId: string; livest
         );
       })}
       {update.isError || remove.isError ? <Banner tone="danger" title="Not changed" message={(update.error ?? remove.error)?.message} /> : null}
-      <AddLivestock tankId={tankId} />
+      <AddLivestock tankId={tankId} volumeL={volumeL} livestock={livestock} />
     </View>
   );
 }
 
-function AddLivestock({ tankId }: { tankId: string }) {
+function AddLivestock({ tankId, volumeL, livestock }: { tankId: string; volumeL: number; livestock: readonly LivestockItem[] }) {
   const { colors, space } = useTheme();
+  const prefs = usePreferences();
   const add = useAddLivestock(tankId);
-  const [kind, setKind] = useState<'catalogue' | 'custom'>('catalogue');
-  const [search, setSearch] = useState('');
-  const [speciesId, setSpeciesId] = useState<string | null>(null);
-  const [customName, setCustomName] = useState('');
+  const [choice, setChoice] = useState<SpeciesChoice>(NO_SPECIES);
   const [count, setCount] = useState('1');
   const [length, setLength] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [done, setDone] = useState<string | null>(null);
-  const chosen = CATALOGUE.find((e) => e.id === speciesId) ?? null;
+  const chosen = choice.speciesId ? findSpecies(choice.speciesId) ?? null : null;
+  const custom = !choice.speciesId && choice.customName.trim() !== '';
+
+  const warning = useMemo(() => {
+    const n = parseDecimal(count);
+    const l = parseDecimal(length);
+    if (n === null || !Number.isInteger(n) || n < 1 || Number.isNaN(l)) return null;
+    const group = chosen ? { species: chosen.id, count: n, ...(l ? { lengthCm: l } : {}) } : custom && l ? { name: choice.customName.trim(), count: n, lengthCm: l } : null;
+    return livestockStocking(volumeL, formatVolume(volumeL, prefs.volumeUnit), livestock, group);
+  }, [count, length, chosen, custom, choice.customName, volumeL, prefs.volumeUnit, livestock]);
 
   const submit = () => {
     const n = parseDecimal(count);
@@ -66,16 +72,15 @@ function AddLivestock({ tankId }: { tankId: string }) {
     const bad: Record<string, string> = {};
     if (n === null || Number.isNaN(n)) bad.count = 'Enter how many, as a whole number.';
     if (Number.isNaN(l)) bad.lengthCm = 'Enter a length in cm, or leave it empty.';
-    if (kind === 'catalogue' && !speciesId) bad.speciesId = 'Choose a species from the list.';
+    if (!chosen && !custom) bad.speciesId = 'Choose a species from the list, or add your own fish.';
+    if (custom && l === null) bad.lengthCm = 'Enter the length of your own fish in cm, so its waste can be estimated.';
     if (Object.keys(bad).length) return setErrors(bad);
-    const input = kind === 'catalogue' ? { speciesId: speciesId!, count: n!, lengthCm: l } : { customName, count: n!, lengthCm: l };
+    const input = chosen ? { speciesId: chosen.id, count: n!, lengthCm: l } : { customName: choice.customName.trim(), count: n!, lengthCm: l };
     add.mutate(input, {
       onSuccess: (item) => {
         setDone(`Added ${item.count} ${speciesDisplayName(item)}.`);
         setErrors({});
-        setSpeciesId(null);
-        setSearch('');
-        setCustomName('');
+        setChoice(NO_SPECIES);
         setCount('1');
         setLength('');
       },
@@ -85,47 +90,27 @@ function AddLivestock({ tankId }: { tankId: string }) {
 
   return (
     <View style={{ gap: space.md, borderTopWidth: 1, borderTopColor: colors.border, paddingTop: space.md }} testID="livestock-add">
-      <ChoiceGroup
+      <SpeciesPicker
         label="Add animals"
-        testID="livestock-kind"
-        value={kind}
-        onChange={(k) => {
-          setKind(k);
-          setErrors({});
+        value={choice}
+        onChange={(c) => {
+          setChoice(c);
+          setErrors(({ speciesId: _s, customName: _c, ...rest }) => rest);
+          setDone(null);
         }}
-        choices={[
-          { value: 'catalogue', label: 'From the catalogue' },
-          { value: 'custom', label: 'Custom fish' },
-        ]}
+        error={errors.speciesId ?? errors.customName}
+        testID="livestock-species"
       />
-      {kind === 'catalogue' ? (
-        <View style={{ gap: space.sm }}>
-          <TextField label="Search species" hint="Common or scientific name." testID="livestock-search" value={search} onChangeText={setSearch} error={errors.speciesId} autoComplete="off" />
-          <AppText variant="caption" tone="textMuted">
-            Catalogue lengths are typical adult sizes and approximate; enter your fish's real length if you know it.
-          </AppText>
-          <SpeciesChoices
-            query={search}
-            selectedId={speciesId}
-            max={MAX_RESULTS}
-            onSelect={(id) => {
-              setSpeciesId(id);
-              setErrors(({ speciesId: _s, ...rest }) => rest);
-              setDone(null);
-            }}
-          />
-          {chosen ? <AppText weight="bold" testID="livestock-chosen">{`Chosen: ${chosen.commonName}`}</AppText> : null}
-        </View>
-      ) : (
-        <TextField label="Name" testID="livestock-custom-name" value={customName} onChangeText={setCustomName} error={errors.customName} maxLength={80} />
-      )}
+      <AppText variant="caption" tone="textMuted">
+        Catalogue lengths are typical adult sizes and approximate; enter your fish's real length if you know it.
+      </AppText>
       <View style={{ flexDirection: 'row', gap: space.md, flexWrap: 'wrap' }}>
         <View style={{ flexGrow: 1, flexBasis: 120 }}>
           <TextField label="How many" testID="livestock-count" value={count} onChangeText={setCount} error={errors.count} inputMode="numeric" keyboardType="number-pad" />
         </View>
         <View style={{ flexGrow: 1, flexBasis: 120 }}>
           <TextField
-            label={kind === 'custom' ? 'Length (cm)' : 'Length now (cm, optional)'}
+            label="Length (cm)"
             testID="livestock-length"
             value={length}
             onChangeText={setLength}
@@ -135,6 +120,7 @@ function AddLivestock({ tankId }: { tankId: string }) {
           />
         </View>
       </View>
+      {warning ? <Banner tone="watch" title="A lot of fish for this tank" message={warning} testID="livestock-stocking-warning" /> : null}
       {errors._ ? <Banner tone="danger" title="Not added" message={errors._} /> : null}
       <Button label="Add to tank" busy={add.isPending} busyLabel="Adding…" onPress={submit} testID="livestock-submit" />
       {done ? (

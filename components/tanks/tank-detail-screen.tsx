@@ -98,7 +98,7 @@ function TankDetailBody({ tank, now }: { tank: TankDetail; now: Date }) {
 
         <View style={{ flexGrow: 1, flexBasis: 320, gap: space.lg }}>
           <Section title={`Livestock · ${fishCount} ${fishCount === 1 ? 'animal' : 'animals'}`} testID="tank-livestock">
-            <LivestockSection tankId={tank.id} livestock={tank.livestock} />
+            <LivestockSection tankId={tank.id} volumeL={tank.volumeL} livestock={tank.livestock} />
           </Section>
           <Section title="Setup" testID="tank-setup">
             <TankSetupSection tank={tank} />

@@ -1,3 +1,4 @@
+import { fishCount } from '@/shared/plan-check-days';
 import { TANK_DEFAULTS, type LimitLevel, type LivestockItem, type NextTest, type PlanEvent, type PlanStatus, type TankSetup } from '@/shared/schemas/tank';
 import type { AerationLevel, MediaType } from '@/simulation/scenario';
 import { findSpecies } from '@/simulation/catalogue';
@@ -93,9 +94,8 @@ export function planSummary(events: readonly PlanEvent[]): string {
   let added = 0;
   let removed = 0;
   for (const e of events) {
-    if (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in')) added += e.fish.count;
-    else if (e.type === 'remove-fish') removed += e.count;
-    else if (e.type === 'move-fish') removed += e.fish.count;
+    if (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in')) added += fishCount(e.fish);
+    else if (e.type === 'remove-fish' || e.type === 'move-fish') removed += fishCount(e.fish);
   }
   const parts = [`${events.length} ${events.length === 1 ? 'step' : 'steps'}`];
   if (added) parts.push(`adds ${added} fish`);

@@ -2,8 +2,10 @@ import type { DataSource } from 'typeorm';
 import { independentQueries, type Db } from '../data-source.js';
 import { parseScenario, ScenarioError, type ScenarioEvent } from '../../simulation/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
-import { tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
+import { MAX_HORIZON_DAYS, tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
 import type { StartReading } from '../../shared/tank-start.js';
+import { buildTimeline } from '../../simulation/timeline.js';
+import { DEFAULT_PARAMETERS } from '../../simulation/parameters.js';
 import type { TankFit } from '../entities/tank-fit.js';
 import { appliedFit } from './tank-fits.js';
 import { Livestock } from '../entities/livestock.js';
@@ -110,13 +112,16 @@ export async function scenarioTankOf(ds: Db, tank: Tank, startDate?: string): Pr
 }
 
 /**
- * Refuses events that cannot run in this tank (e.g. rinsing a zone it does not have), naming
- * the event field. Problems of the tank itself (a custom fish without a length) do not stop a
- * plan being saved; its forecast reports them.
+ * Refuses events that cannot run in this tank (e.g. rinsing a zone it does not have, taking
+ * out fish it will not have, more fish than its water could hold), naming the event field.
+ * Problems of the tank itself (a custom fish without a length) do not stop a plan being saved;
+ * its forecast reports them. The timeline is cheap (bounded by the schema's work budget): no
+ * forecast runs here.
  */
 export async function checkEventsFitTank(ds: Db, tank: Tank, events: ScenarioEvent[]): Promise<void> {
   try {
-    parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }).scenario);
+    const scenario = parseScenario(tankScenario(await scenarioTankOf(ds, tank), { events }).scenario);
+    buildTimeline(scenario, scenario.horizonDays ?? MAX_HORIZON_DAYS, DEFAULT_PARAMETERS);
   } catch (e) {
     if (!(e instanceof ScenarioError)) throw e;
     const eventFields = Object.fromEntries(Object.entries(e.fields).filter(([k]) => k.startsWith('events.')));

@@ -25,6 +25,7 @@
  * pace (the highest peak ratio).
  */
 import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
+import { findSpecies } from '../catalogue';
 import { createForecastSession, forecastParsed, type ForecastSeries, type ForecastSession, type ForecastState } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { bandExplanation, memberOptions } from './ensemble';
@@ -97,7 +98,7 @@ function possibleDays(c: Required<Pick<AdditionConstraints, 'firstDay'>> & Addit
 }
 
 function batchEvents(fish: FishGroup, batches: readonly Batch[]): ScenarioEvent[] {
-  return batches.map((b) => ({ type: 'add-fish', day: b.day, fish: { ...fish, count: b.count } }));
+  return batches.map((b) => ({ type: 'add-fish', day: b.day, fish: [{ ...fish, count: b.count }] }));
 }
 
 interface SearchResult {
@@ -370,7 +371,8 @@ function explainAddition(
   c: AdditionConstraints & { firstDay: number },
   minBatch: number,
 ): string[] {
-  const name = fish.name ?? fish.species ?? 'fish';
+  // The keeper's words: their own name, else the catalogue's common name, never its id.
+  const name = fish.name ?? (fish.species !== undefined ? findSpecies(fish.species)?.commonName : undefined) ?? 'fish';
   const out: string[] = [];
   out.push(describeOutcome(allAtOnce, limits, `All ${fish.count} ${name} at once`));
   if (status === 'all-at-once-is-safe') {

@@ -127,8 +127,8 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
   // Remaining + restock: remove the leaving fish from the list first.
   const target = steadyStateCapacity({ ...scenario, fish: [...subtract(scenario.fish, removed), ...restock] }).aoMgNPerDay;
 
-  const removalEvents: ScenarioEvent[] = removed.map((g) => ({ type: 'remove-fish', day: removalDay, species: g.species, name: g.species ? undefined : g.name, count: g.count }));
-  const restockEvents: ScenarioEvent[] = restock.map((g) => ({ type: 'add-fish', day: restockDay, fish: g }));
+  const removalEvents: ScenarioEvent[] = removed.map((g) => ({ type: 'remove-fish', day: removalDay, fish: [g.species ? { species: g.species, count: g.count } : { name: g.name, count: g.count }] }));
+  const restockEvents: ScenarioEvent[] = restock.map((g) => ({ type: 'add-fish', day: restockDay, fish: [g] }));
   const feedingBefore = scenario.feeding;
   const feedingAfter =
     feedingBefore.mode === 'grams' ? { ...feedingBefore, gramsPerDay: feedingBefore.gramsPerDay * keptShare } : feedingBefore;

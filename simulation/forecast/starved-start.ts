@@ -32,7 +32,7 @@ function massOfFish(fish: readonly FishGroup[], p: Parameters, field: string): n
 
 /** The fish the scenario adds or moves in: the load a seeded filter is meant to carry when the tank starts empty. */
 function addedFish(scenario: Scenario): FishGroup[] {
-  return scenario.events.flatMap((e) => (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in') ? [e.fish] : []));
+  return scenario.events.flatMap((e) => (e.type === 'add-fish' || (e.type === 'move-fish' && e.direction === 'in') ? e.fish : []));
 }
 
 /**

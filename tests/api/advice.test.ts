@@ -42,7 +42,7 @@ describe('POST /api/tanks/:tankId/advice/addition', () => {
     const tank = await settledTank(user.id);
     const plan = await createPlan(ctx.deps.dataSource, tank.id, {
       events: [
-        { type: 'add-fish', day: 0, fish: rasboras },
+        { type: 'add-fish', day: 0, fish: [rasboras] },
         { type: 'water-change', day: 4, percent: 25 },
       ],
     });
@@ -125,7 +125,7 @@ describe('POST /api/tanks/:tankId/advice/rescue', () => {
   it("answers the water changes for a plan's spike, with the plan from the database", async () => {
     const { user, c } = await keeper();
     const tank = await settledTank(user.id);
-    const plan = await createPlan(ctx.deps.dataSource, tank.id, { events: [{ type: 'add-fish', day: 1, fish: { species: 'harlequin-rasbora', count: 40, lengthCm: 3 } }] });
+    const plan = await createPlan(ctx.deps.dataSource, tank.id, { events: [{ type: 'add-fish', day: 1, fish: [{ species: 'harlequin-rasbora', count: 40, lengthCm: 3 }] }] });
     const advice = rescueResponseSchema.parse((await c.post(`/api/tanks/${tank.id}/advice/rescue`, { planId: plan.id, maxPercent: 50 }).expect(200)).body);
     expect(['no-changes-needed', 'rescued', 'cannot-rescue']).toContain(advice.status);
     expect(advice.changes.every((ch) => ch.percent <= 50)).toBe(true);

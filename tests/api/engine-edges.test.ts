@@ -46,7 +46,9 @@ const planBase = {
   startDate: isoDay(-10),
   events: [
     { type: 'add-fish', day: 0, fish: { species: 'neon-tetra', count: 6, lengthCm: 3, massG: 0.5 } },
+    { type: 'add-fish', day: 1, fish: [{ species: 'neon-tetra', count: 6, lengthCm: 3 }, { name: 'Big red', count: 2, massG: 4 }] },
     { type: 'remove-fish', day: 5, species: 'neon-tetra', count: 2 },
+    { type: 'remove-fish', day: 5, fish: [{ species: 'neon-tetra', count: 1 }] },
     { type: 'move-fish', direction: 'in', day: 6, fish: { name: 'guppy', count: 2, lengthCm: 3 } },
     { type: 'feeding', day: 7, feeding: { mode: 'grams', gramsPerDay: 0.5, proteinShare: 0.4 } },
     { type: 'feeding', day: 8, feeding: { mode: 'body-mass', percentPerDay: 2, proteinShare: 0.4 } },

@@ -115,7 +115,7 @@ describe('POST /api/plans/:id/forecast', () => {
     // Another plan on the same tank with the same events under another name: the same inputs.
     const twin = await createPlan(ctx.deps.dataSource, plan.tankId, {
       name: 'Same fish, other name',
-      events: [{ type: 'add-fish', day: 2, fish: { species: 'harlequin-rasbora', count: 16, lengthCm: 3 } }],
+      events: [{ type: 'add-fish', day: 2, fish: [{ species: 'harlequin-rasbora', count: 16, lengthCm: 3 }] }],
     });
     const shared = (await c.post(`/api/plans/${twin.id}/forecast`).expect(200)).body;
     expect(shared).toMatchObject({ cached: true, inputHash: changed.inputHash, planId: twin.id });

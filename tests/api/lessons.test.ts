@@ -81,14 +81,14 @@ describe('lessons', () => {
     const ds = ctx.deps.dataSource;
     const memberId = (await ds.query(`SELECT id FROM users WHERE email = 'member-a@example.org'`))[0].id as string;
     const tank = await createTank(ds, memberId, { name: 'Study tank' });
-    const plan = await createPlan(ds, tank.id, { name: 'Twelve rasboras', events: [{ type: 'add-fish', day: 2, fish: { species: 'harlequin-rasbora', count: 12 } }] });
+    const plan = await createPlan(ds, tank.id, { name: 'Twelve rasboras', events: [{ type: 'add-fish', day: 2, fish: [{ species: 'harlequin-rasbora', count: 12 }] }] });
     const unshared = await createPlan(ds, tank.id, { name: 'Private' });
     const member = await signedIn('member-a@example.org');
     const share = (await member.post(`/api/clubs/${a.id}/shares`, { itemType: 'plan', itemId: plan.id }).expect(201)).body;
     const mentor = await signedIn('mentor-a@example.org');
     const made = lessonDetailSchema.parse((await mentor.post(`/api/clubs/${a.id}/lessons`, { title: 'From Mira’s plan', fromShareId: share.id, steps }).expect(201)).body);
     expect(made.scenario.tank.volumeL).toBe(120);
-    expect(made.scenario.events).toEqual([{ type: 'add-fish', day: 2, fish: { species: 'harlequin-rasbora', count: 12 } }]);
+    expect(made.scenario.events).toEqual([{ type: 'add-fish', day: 2, fish: [{ species: 'harlequin-rasbora', count: 12 }] }]);
     expect(made.scenario.fish).toEqual([]);
     // An id that is not a share of this club (e.g. the plan id itself) is 404.
     await mentor.post(`/api/clubs/${a.id}/lessons`, { title: 'Private plan', fromShareId: unshared.id, steps }).expect(404);

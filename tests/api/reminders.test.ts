@@ -55,7 +55,7 @@ async function keeperWithActivePlan(startDaysAgo: number) {
     name: 'Twelve rasboras',
     status: 'active',
     startDate: isoDaysAgo(startDaysAgo),
-    events: [{ type: 'add-fish', day: 0, fish: { species: 'harlequin-rasbora', count: 12 } }],
+    events: [{ type: 'add-fish', day: 0, fish: [{ species: 'harlequin-rasbora', count: 12 }] }],
   });
   return { user, tank, plan };
 }
@@ -70,7 +70,7 @@ async function settle(count: () => number, atLeast: number, quietMs = 2500, time
 
 describe("check days (the plans' rule in shared/plan-check-days.ts, common practice)", () => {
   it('finds the plan day and its reason for a calendar date, and nothing on other days', () => {
-    const events = [{ type: 'add-fish' as const, day: 0, fish: { species: 'platy', count: 5 } }];
+    const events = [{ type: 'add-fish' as const, day: 0, fish: [{ species: 'platy', count: 5 }] }];
     expect(checkDayOn(events, '2026-03-01', '2026-03-03')).toEqual({ day: 2, reason: '5 fish added on day 0' });
     // Days 1, 2, 3, 5, … after a new load: day 4 is not one.
     expect(checkDayOn(events, '2026-03-01', '2026-03-05')).toBeNull();

@@ -144,7 +144,7 @@ describe('GET /api/tanks status', () => {
     await createReading(ds, calm.id, { takenAt: day(-1), tanMgN: 0.05, no2MgN: 0, ph: 7.2, temperatureC: 25 });
     // Nitrite 0.3 mg N/L is over the 0.1 culture-practice limit (Boyd); 0.06 is at least half of it.
     await createReading(ds, spiking.id, { takenAt: day(-3), tanMgN: 0.05, no2MgN: 0.3, ph: 8.2, temperatureC: 28 });
-    await createPlan(ds, spiking.id, { status: 'active', startDate: ymd(day(-2)), events: [{ type: 'add-fish', day: 3, fish: { species: 'neon-tetra', count: 6 } }] });
+    await createPlan(ds, spiking.id, { status: 'active', startDate: ymd(day(-2)), events: [{ type: 'add-fish', day: 3, fish: [{ species: 'neon-tetra', count: 6 }] }] });
 
     const { tanks } = tankListWithStatusSchema.parse((await k.get('/api/tanks').expect(200)).body);
     const [a, b, c] = tanks;

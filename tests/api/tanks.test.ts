@@ -68,7 +68,7 @@ describe('GET /api/tanks/:id', () => {
     expect(detail.readings[0].takenAt).toBe(new Date(base + 54 * 86_400_000).toISOString());
     expect(detail.readings[49].tanMgN).toBeCloseTo(0.05, 10);
     expect(detail.plans).toEqual([expect.objectContaining({ id: plan.id, status: 'active', startDate: '2026-01-10' })]);
-    expect(detail.plans[0].events[0]).toEqual({ type: 'add-fish', day: 0, fish: { species: 'neon-tetra', count: 6 } });
+    expect(detail.plans[0].events[0]).toEqual({ type: 'add-fish', day: 0, fish: [{ species: 'neon-tetra', count: 6 }] });
   });
 
   it("answers 404 (not 403) for another keeper's tank, a missing one and a malformed id", async () => {

@@ -57,8 +57,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('keeper tanks at %s size
     expect(await page.getByTestId('tank-facts').innerText()).toContain('120 L · 25 °C');
 
     // Fish from the catalogue.
-    await page.getByTestId('livestock-search').fill('neon');
-    await page.getByTestId('species-neon-tetra').click();
+    await page.getByTestId('livestock-species-search').fill('neon');
+    await page.getByTestId('livestock-species-option-neon-tetra').click();
     await page.getByTestId('livestock-count').fill('8');
     await page.getByTestId('livestock-submit').click();
     await page.getByTestId('livestock-added').waitFor();

@@ -23,9 +23,9 @@ async function fillLesson(page: Page, title: string) {
   await page.getByTestId('lesson-new-summary').fill('A settled 150 L tank with eight neon tetras gets thirty cherry barbs in one go.');
   await page.getByTestId('lesson-tank-volume').fill('150');
   await page.getByTestId('event-field-day').fill('1');
-  await page.getByTestId('event-field-species').fill('cherry');
-  await page.getByTestId('species-cherry-barb').click();
-  await page.getByTestId('event-field-count').fill('30');
+  await page.getByTestId('event-fish-0-species-search').fill('cherry');
+  await page.getByTestId('event-fish-0-species-option-cherry-barb').click();
+  await page.getByTestId('event-field-fish.0.count').fill('30');
   await page.getByTestId('event-submit').click();
   await page.getByTestId('event-0').waitFor();
   await page.getByTestId('lesson-step-0-title').fill('The purchase');

@@ -24,8 +24,8 @@ describe('a newcomer on a phone', () => {
       await page.getByTestId('new-tank-submit').click();
       await page.getByTestId('tank-name').waitFor();
 
-      await page.getByTestId('livestock-search').fill('zebra');
-      await page.getByTestId('species-zebra-danio').click();
+      await page.getByTestId('livestock-species-search').fill('zebra');
+      await page.getByTestId('livestock-species-option-zebra-danio').click();
       await page.getByTestId('livestock-count').fill('6');
       await page.getByTestId('livestock-submit').click();
       await page.getByTestId('livestock-added').waitFor();
@@ -37,8 +37,9 @@ describe('a newcomer on a phone', () => {
       await page.getByTestId('screen-plan').waitFor();
       await page.getByTestId('event-type-add-fish').click();
       await page.getByTestId('event-field-day').fill('2');
-      await page.getByTestId('event-field-species').fill('zebra-danio');
-      await page.getByTestId('event-field-count').fill('6');
+      // The tank's own fish are offered first: one tap picks them.
+      await page.getByTestId('event-fish-0-species-option-zebra-danio').click();
+      await page.getByTestId('event-field-fish.0.count').fill('6');
       await page.getByTestId('event-submit').click();
       await page.getByTestId('event-timeline').getByText(/Add 6/).waitFor();
 

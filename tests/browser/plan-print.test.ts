@@ -48,7 +48,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the forecast verdict an
       const plan = (await page.evaluate(async (id) => (await fetch(`/api/plans/${id}`)).json(), planId)) as PlanDetail;
       const adds = plan.events.filter((e): e is AddFish => e.type === 'add-fish');
       const legend = await page.getByTestId('forecast-chart-events').innerText();
-      for (const e of adds) expect(legend).toContain(`day ${e.day}: Add ${e.fish.count} Harlequin rasbora`);
+      for (const e of adds) expect(legend).toContain(`day ${e.day}: Add ${e.fish[0]!.count} Harlequin rasbora`);
       expect(await page.getByTestId('forecast-basis-no2').innerText()).toMatch(/Boyd/);
       expect(await seriousFindings(page), 'plan page').toEqual([]);
 
@@ -57,7 +57,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('the forecast verdict an
       await page.getByTestId('print-day-rows').waitFor();
       await page.locator('[data-testid="print-chart"] svg path').first().waitFor({ timeout: 30_000 });
       expect(await page.getByTestId('print-tank').innerText()).toMatch(/Volume: 120 L/);
-      const added = adds.reduce((n, e) => n + e.fish.count, 0);
+      const added = adds.reduce((n, e) => n + e.fish[0]!.count, 0);
       expect(await page.getByTestId('print-fish').innerText()).toContain(`${added} Harlequin rasbora`);
       expect(await page.getByTestId('print-limits').innerText()).toMatch(/Nitrite: 0\.1 mg\/L as N/);
       expect(await seriousFindings(page), 'print page').toEqual([]);

@@ -102,7 +102,7 @@ describe('what each event kind does to a running forecast (simulation/forecast/e
     const s = scope();
     const water = s.y.slice();
     const flowsBefore = s.conditions.feedFlows;
-    applyBreakpoint(s, { time: 1, fishMassG: 40, actions: [{ kind: 'event', index: 0, event: { type: 'add-fish', day: 1, fish: { species: 'platy', count: 10 } } }] });
+    applyBreakpoint(s, { time: 1, fishMassG: 40, actions: [{ kind: 'event', index: 0, event: { type: 'add-fish', day: 1, fish: [{ species: 'platy', count: 10 }] } }] });
     expect(s.y).toEqual(water);
     expect(s.conditions.fishMassG).toBe(40);
     expect(s.conditions.feedFlows.offeredN).toBeGreaterThan(flowsBefore.offeredN);

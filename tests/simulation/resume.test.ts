@@ -56,7 +56,7 @@ describe('resumable forecasts (createForecastSession, options.from)', () => {
 
   it('an event added on the saved day is applied by the continued run (the state is taken before that day’s events)', () => {
     const s = parseScenario(matureWithPlaties(20));
-    const added: Scenario = { ...s, events: [...s.events, { type: 'add-fish', day: 6, fish: { species: 'platy', count: 30 } }] };
+    const added: Scenario = { ...s, events: [...s.events, { type: 'add-fish', day: 6, fish: [{ species: 'platy', count: 30 }] }] };
     const full = forecastParsed(added, { horizonDays: 25, stepDays: 0.5 });
     const state = createForecastSession(s, { horizonDays: 25, stepDays: 0.5 }).advanceTo(6);
     const rest = forecastParsed(added, { horizonDays: 25, stepDays: 0.5, from: state });

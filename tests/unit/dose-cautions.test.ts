@@ -15,9 +15,9 @@ describe('the dose form cautions (the engine’s words, reused)', () => {
 
   it('counts the fish a plan has on a day: start, additions and moves in, less rehomings and moves out', () => {
     const events: ScenarioEvent[] = [
-      { type: 'remove-fish', day: 1, species: 'platy', count: 10 },
-      { type: 'move-fish', day: 2, direction: 'in', fish: { species: 'platy', count: 3 } },
-      { type: 'add-fish', day: 30, fish: { species: 'platy', count: 10 } },
+      { type: 'remove-fish', day: 1, fish: [{ species: 'platy', count: 10 }] },
+      { type: 'move-fish', day: 2, direction: 'in', fish: [{ species: 'platy', count: 3 }] },
+      { type: 'add-fish', day: 30, fish: [{ species: 'platy', count: 10 }] },
       dose(5),
     ];
     expect(fishOnDay(10, events, 0)).toBe(10);

@@ -28,7 +28,7 @@ const METRIC: UnitPreferences = { volumeUnit: 'L', temperatureUnit: 'C', nitroge
 const US: UnitPreferences = { volumeUnit: 'USgal', temperatureUnit: 'F', nitrogenBasis: 'ion' };
 const CLUB = '6f1c1f8e-8a43-4c55-9d1e-2f9b6f0b7a11';
 
-const add = (day: number, count: number, species = 'cherry-barb'): ScenarioEvent => ({ type: 'add-fish', day, fish: { species, count } });
+const add = (day: number, count: number, species = 'cherry-barb'): ScenarioEvent => ({ type: 'add-fish', day, fish: [{ species, count }] });
 const wc = (day: number, percent = 25): ScenarioEvent => ({ type: 'water-change', day, percent });
 
 /** A mentor's finished single lesson: the default tank, thirty barbs on day 1, two steps. */
@@ -219,7 +219,7 @@ describe('steps', () => {
 describe('splitAdditions', () => {
   it('splits each addition into batches a set number of days apart, larger batches first, other events kept', () => {
     const staged = splitAdditions([add(1, 31), wc(7)], 3, 7);
-    expect(staged.map((e) => [e.day, e.type === 'add-fish' ? e.fish.count : 'wc'])).toEqual([
+    expect(staged.map((e) => [e.day, e.type === 'add-fish' ? e.fish[0]!.count : 'wc'])).toEqual([
       [1, 11],
       [7, 'wc'],
       [8, 10],
@@ -229,7 +229,7 @@ describe('splitAdditions', () => {
   it('never makes empty batches, and leaves the fast timeline untouched', () => {
     const fast = [add(0, 2)];
     const staged = splitAdditions(fast, 5, 3);
-    expect(staged.map((e) => (e.type === 'add-fish' ? e.fish.count : 0))).toEqual([1, 1]);
+    expect(staged.map((e) => (e.type === 'add-fish' ? e.fish[0]!.count : 0))).toEqual([1, 1]);
     expect(fast[0]).toEqual(add(0, 2));
   });
 });

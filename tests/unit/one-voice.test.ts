@@ -25,8 +25,8 @@ const tank: ScenarioInput['tank'] = {
 };
 const day = fc.integer({ min: 1, max: 20 });
 const eventArb: fc.Arbitrary<ScenarioEvent> = fc.oneof(
-  fc.record({ type: fc.constant('add-fish' as const), day, fish: fc.record({ species: fc.constant('neon-tetra'), count: fc.integer({ min: 1, max: 80 }) }) }),
-  fc.record({ type: fc.constant('remove-fish' as const), day, species: fc.constant('neon-tetra'), count: fc.integer({ min: 1, max: 20 }) }),
+  fc.record({ type: fc.constant('add-fish' as const), day, fish: fc.tuple(fc.record({ species: fc.constant('neon-tetra'), count: fc.integer({ min: 1, max: 80 }) })) }),
+  fc.record({ type: fc.constant('remove-fish' as const), day, fish: fc.tuple(fc.record({ species: fc.constant('neon-tetra'), count: fc.integer({ min: 1, max: 20 }) })) }),
   fc.record({ type: fc.constant('ammonia-dose' as const), day, amount: fc.record({ unit: fc.constant('mgN-per-L' as const), value: fc.double({ min: 0.1, max: 3, noNaN: true }) }), repeatEveryDays: fc.constant(2), repeatCount: fc.integer({ min: 1, max: 10 }) }),
   fc.record({ type: fc.constant('filter-clean' as const), day, zoneId: fc.constant('filter'), action: fc.constant('replace' as const), shareLost: fc.constant(1) }),
   fc.record({ type: fc.constant('water-change' as const), day, percent: fc.integer({ min: 10, max: 50 }) }),
@@ -41,7 +41,7 @@ describe('one voice: every text of a plan follows its forecast', () => {
     fc.assert(
       fc.property(planArb, ({ fish, events }) => {
         // Removals only of fish that are there.
-        const kept = events.filter((e) => e.type !== 'remove-fish' || e.count <= fish);
+        const kept = events.filter((e) => e.type !== 'remove-fish' || e.fish[0].count <= fish);
         const s: ScenarioInput = { tank, start: fish > 0 ? { kind: 'mature' } : { kind: 'new' }, fish: fish > 0 ? [{ species: 'neon-tetra', count: fish }] : [], events: kept };
         const f = forecast(s, { horizonDays: 40 });
         const v = forecastView(f);

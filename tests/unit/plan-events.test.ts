@@ -3,9 +3,9 @@ import { addDays, planCheckDays } from '@/shared/plan-check-days';
 import { applySchedule, sortEvents } from '@/lib/draft-store';
 import { blankFields, describeEvent, describeEventOnDay, eventToFields, fieldsToEvent, EVENT_TYPES, FIELDS } from '@/components/plans/event-fields';
 import { EVENT_KINDS } from '@/components/plans/event-kinds';
-import { eventSchema, type ScenarioEvent } from '@/simulation/scenario';
+import { eventShapesSchema, type ScenarioEvent } from '@/simulation/scenario';
 
-const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: { species: 'neon-tetra', count, lengthCm: 3 } });
+const add = (day: number, count: number): ScenarioEvent => ({ type: 'add-fish', day, fish: [{ species: 'neon-tetra', count, lengthCm: 3 }] });
 const wc = (day: number): ScenarioEvent => ({ type: 'water-change', day, percent: 25 });
 
 describe('planCheckDays', () => {
@@ -44,8 +44,8 @@ describe('event fields', () => {
   it('round-trips every kind of event through its form fields', () => {
     const samples: ScenarioEvent[] = [
       add(2, 6),
-      { type: 'remove-fish', day: 3, species: 'neon-tetra', count: 2 },
-      { type: 'move-fish', day: 1, direction: 'out', otherTank: 'Shrimp cube', fish: { species: 'neon-tetra', count: 3 } },
+      { type: 'remove-fish', day: 3, fish: [{ species: 'neon-tetra', count: 2 }] },
+      { type: 'move-fish', day: 1, direction: 'out', otherTank: 'Shrimp cube', fish: [{ species: 'neon-tetra', count: 3 }] },
       { type: 'feeding', day: 0, feeding: { mode: 'grams', gramsPerDay: 1.5 } },
       wc(4),
       { type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 1 }, repeatEveryDays: 2, repeatCount: 5 },
@@ -59,8 +59,41 @@ describe('event fields', () => {
   });
 
   it('puts a schema error under the field the keeper typed in', () => {
-    const result = fieldsToEvent('add-fish', { ...blankFields('add-fish'), species: 'neon-tetra', count: '0' });
-    expect(result).toEqual({ errors: { count: expect.any(String) } });
+    const result = fieldsToEvent('add-fish', { ...blankFields('add-fish'), 'fish.0.species': 'neon-tetra', 'fish.0.count': '0' });
+    expect(result).toEqual({ errors: { 'fish.0.count': 'Count must be at least 1.' } });
+  });
+
+  it('says in words that a count is missing, never the schema wording', () => {
+    const result = fieldsToEvent('add-fish', { ...blankFields('add-fish'), 'fish.0.species': 'neon-tetra' });
+    expect(result).toEqual({ errors: { 'fish.0.count': 'Say how many.' } });
+  });
+
+  it("asks for the length or mass of the keeper's own fish beside its length field", () => {
+    const result = fieldsToEvent('add-fish', { day: '0', 'fish.0.name': 'Big red', 'fish.0.count': '2' });
+    expect(result).toEqual({ errors: { 'fish.0.lengthCm': 'A fish not in the catalogue needs its length or its mass.' } });
+    expect(fieldsToEvent('add-fish', { day: '0', 'fish.0.name': 'Big red', 'fish.0.count': '2', 'fish.0.massG': '40' })).toEqual({
+      event: { type: 'add-fish', day: 0, fish: [{ name: 'Big red', count: 2, massG: 40 }] },
+    });
+  });
+
+  it('carries two species in one add event, each error on its own row', () => {
+    const two = { day: '3', 'fish.0.species': 'neon-tetra', 'fish.0.count': '10', 'fish.1.species': 'bronze-corydoras', 'fish.1.count': '6' };
+    expect(fieldsToEvent('add-fish', two)).toEqual({
+      event: { type: 'add-fish', day: 3, fish: [{ species: 'neon-tetra', count: 10 }, { species: 'bronze-corydoras', count: 6 }] },
+    });
+    expect(fieldsToEvent('add-fish', { ...two, 'fish.1.count': '1.5' })).toEqual({ errors: { 'fish.1.count': 'Count must be a whole number.' } });
+    expect(describeEvent((fieldsToEvent('add-fish', two) as { event: ScenarioEvent }).event)).toBe('Add 10 Neon tetra and 6 Bronze corydoras');
+  });
+
+  it('rehomes several species in one event', () => {
+    const f = { day: '5', 'fish.0.species': 'neon-tetra', 'fish.0.count': '4', 'fish.1.name': 'Big red', 'fish.1.count': '1' };
+    expect(fieldsToEvent('remove-fish', f)).toEqual({
+      event: { type: 'remove-fish', day: 5, fish: [{ species: 'neon-tetra', count: 4 }, { name: 'Big red', count: 1 }] },
+    });
+  });
+
+  it('asks which fish when a row has a count but no species', () => {
+    expect(fieldsToEvent('remove-fish', { day: '5', 'fish.0.count': '4' })).toEqual({ errors: { 'fish.0.species': 'Say which fish: species or name.' } });
   });
 
   it('refuses text that is not a number in a number field', () => {
@@ -123,7 +156,7 @@ describe('the dose form: once, N times a day or continuous', () => {
 
 describe('event kinds', () => {
   it("has one record entry for every event type the engine's schema accepts", () => {
-    const engineTypes = eventSchema.options.map((o) => o.shape.type.value).sort();
+    const engineTypes = eventShapesSchema.options.map((o) => o.shape.type.value).sort();
     expect(Object.keys(EVENT_KINDS).sort()).toEqual(engineTypes);
   });
 

@@ -9,10 +9,10 @@ import { LIMIT_BASIS } from '@/lib/forecast-limits';
 import { fixtureView } from './forecast-fixture';
 
 const events: ScenarioEvent[] = [
-  { type: 'add-fish', day: 0, fish: { species: 'neon-tetra', count: 6, lengthCm: 3 } },
-  { type: 'add-fish', day: 21, fish: { species: 'neon-tetra', count: 6, lengthCm: 3 } },
+  { type: 'add-fish', day: 0, fish: [{ species: 'neon-tetra', count: 6, lengthCm: 3 }] },
+  { type: 'add-fish', day: 21, fish: [{ species: 'neon-tetra', count: 6, lengthCm: 3 }] },
   { type: 'water-change', day: 28, percent: 25 },
-  { type: 'remove-fish', day: 30, species: 'neon-tetra', count: 2 },
+  { type: 'remove-fish', day: 30, fish: [{ species: 'neon-tetra', count: 2 }] },
 ];
 const plan = { startDate: '2026-03-01', events, checkDays: planCheckDays(events, '2026-03-01') };
 

@@ -65,11 +65,11 @@ describe('planSummary', () => {
   it('counts steps and the fish a plan adds and removes', () => {
     expect(
       planSummary([
-        { type: 'add-fish', day: 0, fish: { species: 'harlequin-rasbora', count: 6 } },
-        { type: 'add-fish', day: 10, fish: { species: 'harlequin-rasbora', count: 6 } },
+        { type: 'add-fish', day: 0, fish: [{ species: 'harlequin-rasbora', count: 6 }] },
+        { type: 'add-fish', day: 10, fish: [{ species: 'harlequin-rasbora', count: 6 }] },
         { type: 'water-change', day: 3, percent: 30 },
-        { type: 'remove-fish', day: 12, count: 2 },
-        { type: 'move-fish', day: 14, direction: 'out', fish: { species: 'zebra-danio', count: 3 } },
+        { type: 'remove-fish', day: 12, fish: [{ species: 'harlequin-rasbora', count: 2 }] },
+        { type: 'move-fish', day: 14, direction: 'out', fish: [{ species: 'zebra-danio', count: 3 }] },
       ]),
     ).toBe('5 steps · adds 12 fish · removes 5 fish');
   });

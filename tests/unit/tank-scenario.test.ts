@@ -32,7 +32,7 @@ function communityTank(over: Partial<ScenarioTank> = {}): ScenarioTank {
 const addRasboras = (day: number, count = 4): ScenarioEvent => ({
   type: 'add-fish',
   day,
-  fish: { species: 'harlequin-rasbora', count, lengthCm: 3 },
+  fish: [{ species: 'harlequin-rasbora', count, lengthCm: 3 }],
 });
 
 describe('startFor', () => {

@@ -47,7 +47,7 @@ describe('nextTestDue', () => {
   });
 
   it("is the running plan's first check day after the last test (shared/plan-check-days.ts)", () => {
-    const events = [{ type: 'add-fish', day: 9, fish: { species: 'guppy', count: 3 } }];
+    const events = [{ type: 'add-fish', day: 9, fish: [{ species: 'guppy', count: 3 }] }];
     // Fish added on day 9 = 10 Mar: the plans' rule checks the day after, 11 Mar.
     expect(nextTestDue(new Date('2026-03-10T08:00:00Z'), { startDate: '2026-03-01', events } as never, NOW)).toEqual({
       date: '2026-03-11',

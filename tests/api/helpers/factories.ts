@@ -96,7 +96,7 @@ export async function createPlan(ds: DataSource, tankId: string, overrides: Part
       name: `Plan ${next()}`,
       startDate: '2026-01-10',
       status: 'draft',
-      events: [{ type: 'add-fish', day: 0, fish: { species: 'neon-tetra', count: 6 } }],
+      events: [{ type: 'add-fish', day: 0, fish: [{ species: 'neon-tetra', count: 6 }] }],
       ...overrides,
     }),
   );

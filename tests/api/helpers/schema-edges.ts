@@ -16,6 +16,7 @@ function pick(node: Json, value: unknown): Json {
   const options = (node.oneOf ?? node.anyOf) as Json[] | undefined;
   if (!options) return node;
   const match = options.find((o) => {
+    if (Array.isArray(value)) return o.type === 'array';
     const props = (o.properties ?? {}) as Record<string, Json>;
     if (o.type === 'object' && value && typeof value === 'object') {
       return Object.entries(props).every(([k, p]) => p.const === undefined || (value as Json)[k] === p.const);

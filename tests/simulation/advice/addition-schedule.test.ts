@@ -10,7 +10,7 @@ import { matureTank, p90, peakRatio, resimulate, type Member } from './fixtures'
 const fish = { species: 'platy', count: 40 };
 
 function plan(base: Scenario, batches: { day: number; count: number }[]): Scenario {
-  return { ...base, events: [...base.events, ...batches.map((b) => ({ type: 'add-fish' as const, day: b.day, fish: { ...fish, count: b.count } }))] };
+  return { ...base, events: [...base.events, ...batches.map((b) => ({ type: 'add-fish' as const, day: b.day, fish: [{ ...fish, count: b.count }] }))] };
 }
 
 describe('fastestSafeSchedule (40 platies into a 200 L tank holding 10; common practice: stage large additions)', () => {
