@@ -50,6 +50,19 @@ export function applySchedule(events: readonly ScenarioEvent[], schedule: readon
   return sortEvents([...events.filter((e) => e.type !== 'add-fish'), ...schedule.filter((e) => e.type === 'add-fish')]);
 }
 
+/**
+ * The events a list shows for a plan: the unsaved draft's while there is one (so a count never
+ * says "0 events" for a plan being filled in), else the saved ones.
+ */
+export function shownEvents(draft: PlanDraft | undefined, saved: readonly ScenarioEvent[]): { events: readonly ScenarioEvent[]; unsaved: boolean } {
+  return draft?.dirty ? { events: draft.events, unsaved: true } : { events: saved, unsaved: false };
+}
+
+/** "1 event", "3 events". */
+export function eventCount(n: number): string {
+  return `${n} ${n === 1 ? 'event' : 'events'}`;
+}
+
 export const useDraftStore = create<DraftState>((set) => {
   const edit = (planId: string, f: (d: PlanDraft) => Partial<PlanDraft>) =>
     set((s) => {

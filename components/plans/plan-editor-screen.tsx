@@ -4,16 +4,19 @@ import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { ScenarioTank } from '@/shared/tank-scenario';
 import { planCheckDays } from '@/shared/plan-check-days';
+import { defaultHorizonDays } from '@/shared/tank-scenario';
 import { START_SENTENCES } from '@/shared/forecast-view';
-import { usePlan, usePlanForecast, useUpdatePlan } from '@/hooks/use-plans';
+import { usePlan, usePlanForecast, usePlanReadings, useUpdatePlan } from '@/hooks/use-plans';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { useLiveForecast } from '@/hooks/use-forecast';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
-import { applySchedule, useDraftStore } from '@/lib/draft-store';
+import { applySchedule, eventCount, useDraftStore } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
 import { basisWords } from '@/lib/units-format';
+import { planProgress, readingDay, readingsBesideForecast } from '@/lib/plan-progress';
+import { describeEvent } from '@/components/plans/event-fields';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { ShareLinkPanel } from '@/components/share/share-link-panel';
@@ -32,6 +35,9 @@ import { AdvicePanel } from '@/components/plans/advice-panel';
 import { CountSlider } from '@/components/plans/count-slider';
 import { EventForm } from '@/components/plans/event-form';
 import { EventTimeline } from '@/components/plans/event-timeline';
+import { PlanLifeCard } from '@/components/plans/plan-life-card';
+import { PlanCheckDaysCard } from '@/components/plans/plan-check-days-card';
+import { ReadingsBesideForecast } from '@/components/plans/readings-beside-forecast';
 
 const NO_EVENTS: ScenarioEvent[] = [];
 
@@ -55,7 +61,10 @@ function sliderTarget(events: readonly ScenarioEvent[], selected: number | null)
   return events.findIndex((e) => e.type === 'add-fish');
 }
 
-/** A plan: its timeline of events, the live forecast while editing, advice, and saving. */
+/**
+ * A plan: its timeline of events, the live forecast while editing, advice, and saving; once
+ * started, its test days and the tank's tests beside the forecast; once done, all read-only.
+ */
 export function PlanEditorScreen({ id }: { id: string }) {
   const plan = usePlan(id);
   const tank = useTankDetail(plan.data?.tankId ?? '');
@@ -97,6 +106,18 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const shownFromServer = !dirty && server.data !== undefined;
   const view = shownFromServer ? server.data!.forecast : live.view;
   const checkDays = useMemo(() => planCheckDays(events, saved.startDate), [events, saved.startDate]);
+  const readOnly = saved.status === 'done';
+  const planReadings = usePlanReadings(saved);
+  const readings = planReadings.data?.readings;
+  // Where a started plan stands, against its saved check days and the tests since day 0.
+  const progress = useMemo(
+    () => (saved.status === 'draft' ? null : planProgress(saved, readings ?? [], new Date(), defaultHorizonDays(saved.events))),
+    [saved, readings],
+  );
+  const chartReadings = useMemo(
+    () => (readings ?? []).map((r) => ({ day: readingDay(r.takenAt, saved.startDate), tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN })),
+    [readings, saved.startDate],
+  );
 
   const target = sliderTarget(events, selected);
   const targetEvent = target >= 0 ? (events[target] as Extract<ScenarioEvent, { type: 'add-fish' }>) : null;
@@ -118,6 +139,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       { name: draft?.name ?? saved.name, events },
       { onSuccess: (p) => markSaved(planId, p.updatedAt) },
     );
+  const saveNow = async () => markSaved(planId, (await save.mutateAsync({ name: draft?.name ?? saved.name, events })).updatedAt);
   const saveErrors = save.error && isApiRequestError(save.error) ? save.error.fields : {};
 
   const headerCard = (
@@ -126,12 +148,13 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           <Heading testID="plan-name">{draft?.name ?? saved.name}</Heading>
           <StatusPill tone={planStatusLabel[saved.status].tone} label={planStatusLabel[saved.status].label} testID="plan-status" />
         </View>
-        <AppText tone="textMuted">{`${saved.tankName} · starts ${saved.startDate}`}</AppText>
+        <AppText tone="textMuted">{`${saved.tankName} · ${saved.status === 'draft' ? `day 0 set to ${saved.startDate} until started` : `day 0: ${saved.startDate}`} · ${eventCount(events.length)}${dirty ? ' (unsaved changes)' : ''}`}</AppText>
         <TextLink href={`/tanks/${saved.tankId}`} label="Open the tank" testID="plan-tank-link" />
         <TextLink href={`/print/plan/${planId}`} label="Printable plan" testID="plan-print-link" />
       </Card>
   );
-  const sliderCard = targetEvent ? (
+  const lifeCard = <PlanLifeCard plan={saved} tank={tank} progress={progress} dirty={dirty} eventCount={events.length} save={saveNow} />;
+  const sliderCard = targetEvent && !readOnly ? (
         <Card testID="plan-slider-card">
           <CountSlider
             label={`Fish added on day ${targetEvent.day}`}
@@ -144,7 +167,19 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           <AppText variant="caption" tone="textMuted">The forecast redraws as you move it; save to keep the change.</AppText>
         </Card>
   ) : null;
-  const planColumn = (
+  const planColumn = readOnly ? (
+    <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
+      <Card testID="plan-events">
+        <Heading level={2}>What happened when</Heading>
+        <View role="list" testID="event-timeline" style={{ gap: space.xs }}>
+          {[...events].sort((a, b) => a.day - b.day).map((e, i) => (
+            <AppText key={i} role="listitem">{`Day ${e.day}: ${describeEvent(e)}`}</AppText>
+          ))}
+        </View>
+      </Card>
+      <PlanCheckDaysCard checkDays={checkDays} progress={progress?.checkDays ?? null} />
+    </View>
+  ) : (
     <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
       <Card testID="plan-events">
         <Heading level={2}>What happens when</Heading>
@@ -169,14 +204,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         </View>
       </Card>
 
-      <Card testID="plan-check-days">
-        <Heading level={2}>When to test</Heading>
-        {checkDays.length === 0 ? <AppText tone="textMuted">Add an event to see the test days.</AppText> : null}
-        {checkDays.slice(0, 12).map((d) => (
-          <AppText key={d.day}>{`Day ${d.day} (${d.date}): ${d.reasons.join('; ')}`}</AppText>
-        ))}
-        {checkDays.length > 12 ? <AppText tone="textMuted">{`…and ${checkDays.length - 12} more on the printable plan.`}</AppText> : null}
-      </Card>
+      <PlanCheckDaysCard checkDays={checkDays} progress={dirty ? null : progress?.checkDays ?? null} />
     </View>
   );
 
@@ -191,7 +219,10 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         {view ? (
           <>
             <ForecastVerdict view={view} basis={prefs.nitrogenBasis} />
-            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} events={events} />
+            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} events={events} readings={chartReadings} />
+            {saved.status !== 'draft' && readings ? (
+              <ReadingsBesideForecast rows={readingsBesideForecast(readings, view, saved.startDate)} basis={prefs.nitrogenBasis} total={planReadings.data?.total ?? 0} finished={readOnly} />
+            ) : null}
           </>
         ) : (
           <Loading label="Running the forecast…" testID="forecast-loading" />
@@ -204,7 +235,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         {shownFromServer ? <AppText variant="caption" tone="textMuted" testID="forecast-start">{START_SENTENCES[server.data!.startReason]}</AppText> : null}
       </Card>
   );
-  const adviceCard = (
+  const adviceCard = readOnly ? null : (
       <Card>
         <AdvicePanel
           tank={tank}
@@ -226,6 +257,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
     <View style={{ flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' }} testID="plan-wide">
       <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
         {headerCard}
+        {lifeCard}
         {sliderCard}
         {planColumn}
       </View>
@@ -239,6 +271,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   ) : (
     <View style={{ gap: space.lg }} testID="plan-narrow">
       {headerCard}
+      {lifeCard}
       {sliderCard}
       {forecastCard}
       {planColumn}
