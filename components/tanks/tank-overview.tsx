@@ -35,69 +35,74 @@ export function TankOverview({ tank, overview, now, onLogTest }: { tank: TankDet
   const { running, action } = overview;
 
   return (
-    <Card testID="tank-overview" style={{ gap: space.md }}>
-      <View style={{ gap: space.xxs }}>
-        <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-start', gap: space.sm, flexWrap: 'wrap' }}>
-          <Heading testID="tank-name" style={{ flexShrink: 1 }}>
-            {tank.name}
-          </Heading>
-          <StatusPill tone={status.tone} label={status.label} testID="tank-status" />
+    <Card testID="tank-overview" style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.lg }}>
+      {/* Wide: the state on the left, the plan and the next action on the right; a phone stacks them. */}
+      <View style={{ flexGrow: 1, flexBasis: 320, gap: space.md }}>
+        <View style={{ gap: space.xxs }}>
+          <View style={{ flexDirection: 'row', justifyContent: 'space-between', alignItems: 'flex-start', gap: space.sm, flexWrap: 'wrap' }}>
+            <Heading testID="tank-name" style={{ flexShrink: 1 }}>
+              {tank.name}
+            </Heading>
+            <StatusPill tone={status.tone} label={status.label} testID="tank-status" />
+          </View>
+          <AppText tone="textMuted" testID="tank-facts">
+            {facts.join(' · ')}
+          </AppText>
+          <AppText testID="tank-stock">{stockingLabel(overview.stock.fish, overview.stock.species, overview.stock.invertebrates)}</AppText>
         </View>
-        <AppText tone="textMuted" testID="tank-facts">
-          {facts.join(' · ')}
-        </AppText>
-        <AppText testID="tank-stock">{stockingLabel(overview.stock.fish, overview.stock.species, overview.stock.invertebrates)}</AppText>
+
+        <View testID="tank-latest" style={{ gap: space.xs }}>
+          {latest ? (
+            <>
+              <AppText variant="caption" weight="bold" tone="textMuted">{`Last water test: ${relativeDayLabel(latest.takenAt, now)} (${shortDate(latest.takenAt)})`}</AppText>
+              <NitrogenFigures values={latest} testID="tank-latest-figures" />
+              {flagged.map((j) => {
+                const b = units.nitrogenBasis;
+                const name = NITROGEN_FIGURES.find((f) => f.key === j.key)!.label;
+                return (
+                  <AppText key={j.key} weight="bold" tone={j.level === 'over' ? 'dangerText' : 'watchText'} testID={`tank-latest-${j.key}-judged`}>
+                    {`${name} ${formatNitrogen(j.valueMgN, j.key, b)} ${nitrogenUnit(j.key, b)}: ${LEVEL_WORDS[j.level as 'watch' | 'over']} the limit of ${formatNitrogen(j.limit.value, j.key, b)}`}
+                  </AppText>
+                );
+              })}
+              {overview.overall === 'over' ? <Banner tone="danger" title="Over a limit" message={OVER_LIMIT_ADVICE} testID="tank-latest-over" /> : null}
+            </>
+          ) : (
+            <AppText tone="textMuted">No water test logged yet.</AppText>
+          )}
+        </View>
       </View>
 
-      <View testID="tank-latest" style={{ gap: space.xs }}>
-        {latest ? (
-          <>
-            <AppText variant="caption" weight="bold" tone="textMuted">{`Last water test: ${relativeDayLabel(latest.takenAt, now)} (${shortDate(latest.takenAt)})`}</AppText>
-            <NitrogenFigures values={latest} testID="tank-latest-figures" />
-            {flagged.map((j) => {
-              const b = units.nitrogenBasis;
-              const name = NITROGEN_FIGURES.find((f) => f.key === j.key)!.label;
-              return (
-                <AppText key={j.key} weight="bold" tone={j.level === 'over' ? 'dangerText' : 'watchText'} testID={`tank-latest-${j.key}-judged`}>
-                  {`${name} ${formatNitrogen(j.valueMgN, j.key, b)} ${nitrogenUnit(j.key, b)}: ${LEVEL_WORDS[j.level as 'watch' | 'over']} the limit of ${formatNitrogen(j.limit.value, j.key, b)}`}
-                </AppText>
-              );
-            })}
-            {overview.overall === 'over' ? <Banner tone="danger" title="Over a limit" message={OVER_LIMIT_ADVICE} testID="tank-latest-over" /> : null}
-          </>
-        ) : (
-          <AppText tone="textMuted">No water test logged yet.</AppText>
-        )}
-      </View>
+      <View style={{ flexGrow: 1, flexBasis: 280, gap: space.md }}>
+        <View testID="tank-running-plan" style={{ gap: space.xxs }}>
+          {running ? (
+            <>
+              <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' }}>
+                <StatusPill tone="ok" label="Plan in progress" />
+                <AppText weight="bold">{running.plan.name}</AppText>
+              </View>
+              <AppText tone="textMuted">{`Day ${running.progress.today} of ${running.progress.lastDay} · ${running.progress.done} of ${running.progress.checkDays.length} test days done${running.progress.missed ? `, ${running.progress.missed} missed` : ''}`}</AppText>
+            </>
+          ) : (
+            <AppText tone="textMuted">No plan running.</AppText>
+          )}
+        </View>
 
-      <View testID="tank-running-plan" style={{ gap: space.xxs }}>
-        {running ? (
-          <>
-            <View style={{ flexDirection: 'row', gap: space.sm, alignItems: 'center', flexWrap: 'wrap' }}>
-              <StatusPill tone="ok" label="Plan in progress" />
-              <AppText weight="bold">{running.plan.name}</AppText>
-            </View>
-            <AppText tone="textMuted">{`Day ${running.progress.today} of ${running.progress.lastDay} · ${running.progress.done} of ${running.progress.checkDays.length} test days done${running.progress.missed ? `, ${running.progress.missed} missed` : ''}`}</AppText>
-          </>
-        ) : (
-          <AppText tone="textMuted">No plan running.</AppText>
-        )}
-      </View>
-
-      <View testID="tank-next-action" style={{ gap: space.xs }}>
-        <AppText variant="caption" weight="bold" tone="textMuted">
-          Next
-        </AppText>
-        {action.kind === 'log-test' ? (
-          <Button label={action.label} onPress={onLogTest} testID="tank-action-log-test" />
-        ) : (
-          <ActionLink
-            href={action.kind === 'open-plan' ? `/plans/${action.planId}` : `/plans?tankId=${tank.id}`}
-            label={action.label}
-            testID={action.kind === 'open-plan' ? 'tank-action-open-plan' : 'tank-action-plan-change'}
-          />
-        )}
-        <AppText testID="tank-next-action-why">{action.why}</AppText>
+        <View testID="tank-next-action" style={{ gap: space.xs }}>
+          <AppText variant="caption" weight="bold" tone="textMuted">
+            Next
+          </AppText>
+          {action.kind === 'log-test' ? (
+            <Button label={action.label} onPress={onLogTest} testID="tank-action-log-test" />
+          ) : (
+            <ActionLink
+              href={action.kind === 'open-plan' ? `/plans/${action.planId}` : `/plans?tankId=${tank.id}`}
+              label={action.label}
+              testID={action.kind === 'open-plan' ? 'tank-action-open-plan' : 'tank-action-plan-change'}
+            />
+          )}
+          <AppText testID="tank-next-action-why">{action.why}</AppText>
+        </View>
       </View>
     </Card>
   );
