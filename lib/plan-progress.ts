@@ -105,7 +105,8 @@ export function planProgress(
   const finishedOn = plan.finishedAt ? localDate(new Date(plan.finishedAt)) : null;
   const checkDays = checkDayProgress(plan.checkDays, testedDates(readings), today, finishedOn);
   return {
-    today: daysBetween(plan.startDate, today),
+    // Never below day 0: a start date a day ahead of this device's calendar (another time zone) is day 0.
+    today: Math.max(0, daysBetween(plan.startDate, today)),
     lastDay,
     checkDays,
     next: finishedOn ? null : nextCheckDay(checkDays),
