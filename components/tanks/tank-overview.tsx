@@ -8,7 +8,7 @@ import { formatNitrogen, formatTemperature, formatVolume, nitrogenUnit } from '@
 import { Card } from '@/components/ui/card';
 import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
-import { PressableLink } from '@/components/ui/pressable-link';
+import { ButtonLink } from '@/components/ui/button-link';
 import { StatusPill } from '@/components/ui/status-pill';
 import { AppText, Heading } from '@/components/ui/text';
 import { NitrogenFigures } from '@/components/tanks/nitrogen-figures';
@@ -95,7 +95,7 @@ export function TankOverview({ tank, overview, now, onLogTest }: { tank: TankDet
           {action.kind === 'log-test' ? (
             <Button label={action.label} onPress={onLogTest} testID="tank-action-log-test" />
           ) : (
-            <ActionLink
+            <ButtonLink
               href={action.kind === 'open-plan' ? `/plans/${action.planId}` : `/plans?tankId=${tank.id}`}
               label={action.label}
               testID={action.kind === 'open-plan' ? 'tank-action-open-plan' : 'tank-action-plan-change'}
@@ -105,32 +105,5 @@ export function TankOverview({ tank, overview, now, onLogTest }: { tank: TankDet
         </View>
       </View>
     </Card>
-  );
-}
-
-/** A link that looks like the primary button (it opens another page). */
-function ActionLink({ href, label, testID }: { href: string; label: string; testID: string }) {
-  const { colors, radii, space, layout } = useTheme();
-  return (
-    <PressableLink
-      href={href as never}
-      testID={testID}
-      accessibilityRole="link"
-      accessibilityLabel={label}
-      style={({ pressed, focused }) => ({
-        minHeight: layout.minTouchTarget,
-        justifyContent: 'center',
-        alignSelf: 'flex-start',
-        paddingHorizontal: space.xl,
-        borderRadius: radii.md,
-        borderWidth: 2,
-        borderColor: focused ? colors.focus : 'transparent',
-        backgroundColor: pressed ? colors.primaryPressed : colors.primary,
-      })}
-    >
-      <AppText variant="label" weight="bold" style={{ color: colors.onPrimary }}>
-        {label}
-      </AppText>
-    </PressableLink>
   );
 }

@@ -1,9 +1,8 @@
-import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../shared/api-error';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, newPage, screenshot, signIn, VIEWPORTS, type ViewportName } from './support';
+import { launchBrowser, newPage, screenshot, seriousFindings, signIn, VIEWPORTS, type ViewportName } from './support';
 
 const sam = DEMO_PEOPLE.find((p) => p.key === 'keeper')!;
 
@@ -24,14 +23,6 @@ async function api(page: Page, method: string, url: string, body?: unknown): Pro
     },
     { method, url, body, header: CSRF_HEADER, value: CSRF_HEADER_VALUE },
   );
-}
-
-/** Serious and critical axe findings, as short lines (tests/browser/csp-and-a11y.test.ts does the same). */
-async function seriousFindings(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page: page as never }).analyze();
-  return result.violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
 }
 
 /** Whether the element's bottom edge is inside the window (above the fold). */
