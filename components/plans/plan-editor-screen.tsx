@@ -97,8 +97,10 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const { ensureDraft, setEvents, updateEvent, addEvent, removeEvent, setName, select, markSaved, discard } = useDraftStore.getState();
   useEffect(() => ensureDraft(planId, saved), [planId, saved, ensureDraft]);
 
-  const events = draft?.events ?? NO_EVENTS;
-  const dirty = draft?.dirty ?? false;
+  // A finished plan shows what it ran, never a leftover unsaved draft.
+  const finished = saved.status === 'done';
+  const events = finished ? saved.events : (draft?.events ?? NO_EVENTS);
+  const dirty = !finished && (draft?.dirty ?? false);
   const sTank = useMemo(() => scenarioTankOf(tank), [tank]);
   const live = useLiveForecast(sTank, draft ? events : undefined);
 
@@ -106,7 +108,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const shownFromServer = !dirty && server.data !== undefined;
   const view = shownFromServer ? server.data!.forecast : live.view;
   const checkDays = useMemo(() => planCheckDays(events, saved.startDate), [events, saved.startDate]);
-  const readOnly = saved.status === 'done';
+  const readOnly = finished;
   const planReadings = usePlanReadings(saved);
   const readings = planReadings.data?.readings;
   // Where a started plan stands, against its saved check days and the tests since day 0.

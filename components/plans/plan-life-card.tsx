@@ -39,7 +39,7 @@ export function PlanLifeCard({ plan, tank, progress, dirty, eventCount, save }: 
   return (
     <Card testID="plan-life">
       {plan.status === 'draft' ? <DraftPart plan={plan} tank={tank} dirty={dirty} eventCount={eventCount} save={save} transition={transition} /> : null}
-      {plan.status === 'active' && progress ? <RunningPart plan={plan} tank={tank} progress={progress} transition={transition} /> : null}
+      {plan.status === 'active' && progress ? <RunningPart plan={plan} tank={tank} progress={progress} dirty={dirty} transition={transition} /> : null}
       {plan.status === 'done' && progress ? <DonePart plan={plan} progress={progress} /> : null}
       {error ? <Banner tone="danger" title="Not changed" message={error} testID="plan-life-error" /> : null}
     </Card>
@@ -53,7 +53,11 @@ function DraftPart({ plan, tank, dirty, eventCount, save, transition }: Omit<Pla
   const other = tank.plans.find((p) => p.status === 'active' && p.id !== plan.id);
   const empty = eventCount === 0;
   const start = async () => {
-    if (dirty) await save();
+    try {
+      if (dirty) await save();
+    } catch {
+      return; // The save card says what was refused.
+    }
     transition.mutate({ kind: 'start', body: { startDate: today } });
   };
   return (
@@ -78,7 +82,7 @@ function DraftPart({ plan, tank, dirty, eventCount, save, transition }: Omit<Pla
   );
 }
 
-function RunningPart({ plan, tank, progress, transition }: { plan: PlanDetail; tank: TankDetail; progress: PlanProgress; transition: Transition }) {
+function RunningPart({ plan, tank, progress, dirty, transition }: { plan: PlanDetail; tank: TankDetail; progress: PlanProgress; dirty: boolean; transition: Transition }) {
   const { space } = useTheme();
   const [logging, setLogging] = useState(false);
   const [confirming, setConfirming] = useState(false);
@@ -105,8 +109,9 @@ function RunningPart({ plan, tank, progress, transition }: { plan: PlanDetail; t
           accessibilityState={{ expanded: logging }}
           testID="plan-log-test"
         />
-        {!confirming ? <Button label="Mark as done…" variant="secondary" onPress={() => setConfirming(true)} testID="plan-finish" /> : null}
+        {!confirming ? <Button label="Mark as done…" variant="secondary" disabled={dirty} onPress={() => setConfirming(true)} testID="plan-finish" /> : null}
       </View>
+      {dirty ? <AppText tone="textMuted">Save or undo your changes before marking the plan as done.</AppText> : null}
       {logging ? (
         <View testID="plan-quick-test">
           <QuickTestForm tankId={tank.id} last={tank.readings[0] ?? null} />

@@ -64,7 +64,7 @@ export function PlansListScreen({ tankId }: { tankId?: string }) {
 /** Tank, day 0 and events of one listed plan; an unsaved draft's events count. */
 function PlanListFacts({ plan }: { plan: PlanDetail }) {
   const draft = useDraftStore((s) => s.drafts[plan.id]);
-  const { events, unsaved } = shownEvents(draft, plan.events);
+  const { events, unsaved } = shownEvents(plan.status === 'done' ? undefined : draft, plan.events);
   const first = [...events].sort((a, b) => a.day - b.day)[0];
   const when = plan.status === 'draft' ? 'not started' : `day 0: ${plan.startDate}`;
   return (

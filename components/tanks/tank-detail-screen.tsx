@@ -130,7 +130,7 @@ function PlansList({ tank }: { tank: TankDetail }) {
       {tank.plans.length === 0 ? <AppText tone="textMuted">No plans for this tank yet.</AppText> : null}
       {tank.plans.map((plan) => {
         const status = planStatusLabel[plan.status];
-        const { events, unsaved } = shownEvents(drafts[plan.id], plan.events);
+        const { events, unsaved } = shownEvents(plan.status === 'done' ? undefined : drafts[plan.id], plan.events);
         const when = plan.status === 'draft' ? 'Not started' : `Day 0: ${shortDate(`${plan.startDate}T12:00:00`)}`;
         return (
           <View key={plan.id} testID={`plan-${plan.id}`} style={{ gap: space.xxs }}>
