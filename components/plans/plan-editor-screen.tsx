@@ -150,7 +150,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           <Heading testID="plan-name">{draft?.name ?? saved.name}</Heading>
           <StatusPill tone={planStatusLabel[saved.status].tone} label={planStatusLabel[saved.status].label} testID="plan-status" />
         </View>
-        <AppText tone="textMuted">{`${saved.tankName} · ${saved.status === 'draft' ? `day 0 set to ${saved.startDate} until started` : `day 0: ${saved.startDate}`} · ${eventCount(events.length)}${dirty ? ' (unsaved changes)' : ''}`}</AppText>
+        <AppText tone="textMuted">{`${saved.tankName} · ${saved.status === 'draft' ? 'not started' : `day 0: ${saved.startDate}`} · ${eventCount(events.length)}${dirty ? ' (unsaved changes)' : ''}`}</AppText>
         <TextLink href={`/tanks/${saved.tankId}`} label="Open the tank" testID="plan-tank-link" />
         <TextLink href={`/print/plan/${planId}`} label="Printable plan" testID="plan-print-link" />
       </Card>

@@ -140,7 +140,7 @@ function DonePart({ plan, progress }: { plan: PlanDetail; progress: PlanProgress
     <>
       <Heading level={2}>Done</Heading>
       <AppText testID="plan-done-summary">
-        {`Ran from ${shortDate(`${plan.startDate}T12:00:00`)}${plan.finishedAt ? ` to ${shortDate(plan.finishedAt)} (${ran} ${ran === 1 ? 'day' : 'days'})` : ''}. ${progress.done} of ${progress.checkDays.filter((c) => c.state !== 'not-needed').length} test days were tested.`}
+        {`Ran from ${shortDate(`${plan.startDate}T12:00:00`)}${plan.finishedAt ? ` to ${shortDate(plan.finishedAt)} (${ran === 0 ? 'the same day' : `${ran} ${ran === 1 ? 'day' : 'days'}`})` : ''}. ${progress.done} of ${progress.checkDays.filter((c) => c.state !== 'not-needed').length} test days were tested.`}
       </AppText>
       <AppText tone="textMuted">Kept as it ran: it can no longer change. Plan the next change from the tank page.</AppText>
     </>

@@ -63,6 +63,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a plan’s life at %s s
       await page.getByTestId('event-timeline').getByText(/Change 40 %/).waitFor();
       // The header counts the unsaved event (it said "0 events" until saved before).
       expect(await page.getByTestId('plan-header').innerText()).toContain('1 event (unsaved changes)');
+      await page.getByTestId('plan-life').scrollIntoViewIfNeeded();
+      await screenshot(page, `plan-life-draft-${size}`);
 
       // Start: saves the draft, day 0 is today, the check days get their states.
       await page.getByTestId('plan-start').click();
