@@ -60,12 +60,14 @@ function TankDetailBody({ tank, now }: { tank: TankDetail; now: Date }) {
   // once opened by that rule stays open, so saving a test does not fold its form away).
   const [chosen, setChosen] = useState<Partial<Record<SectionKey, boolean>>>({});
   const wanted = openAtFirst(overview, tank);
+  const opened = (Object.keys(wanted) as SectionKey[]).filter((k) => wanted[k]).join(' ');
   useEffect(() => {
+    if (!opened) return;
     setChosen((c) => {
-      const add = (Object.keys(wanted) as SectionKey[]).filter((k) => wanted[k] && c[k] === undefined);
+      const add = (opened.split(' ') as SectionKey[]).filter((k) => c[k] === undefined);
       return add.length ? { ...c, ...Object.fromEntries(add.map((k) => [k, true])) } : c;
     });
-  }, [wanted.test, wanted.livestock]); // eslint-disable-line react-hooks/exhaustive-deps
+  }, [opened]);
   const isOpen = (k: SectionKey) => chosen[k] ?? wanted[k];
   const toggle = (k: SectionKey) => setChosen((c) => ({ ...c, [k]: !isOpen(k) }));
   const testSection = useRef<View>(null);
