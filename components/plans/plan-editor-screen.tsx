@@ -110,7 +110,8 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const checkDays = useMemo(() => planCheckDays(events, saved.startDate), [events, saved.startDate]);
   const readOnly = finished;
   const planReadings = usePlanReadings(saved);
-  const readings = planReadings.data?.readings;
+  // The server sends every test that could be day 0 somewhere; keep those of this calendar.
+  const readings = useMemo(() => planReadings.data?.readings.filter((r) => readingDay(r.takenAt, saved.startDate) >= 0), [planReadings.data, saved.startDate]);
   // Where a started plan stands, against its saved check days and the tests since day 0.
   const progress = useMemo(
     () => (saved.status === 'draft' ? null : planProgress(saved, readings ?? [], new Date(), defaultHorizonDays(saved.events))),

@@ -174,14 +174,18 @@ export async function finishPlan(db: Db, own: OwnPlan, now: Date): Promise<Plan>
 /** Most tests one plan's readings answer holds (a year of tests, one a day, fits). */
 export const PLAN_READING_LIMIT = 400;
 
+/** The earliest a calendar day starts anywhere (UTC+14), so day 0 in the keeper's own zone is never cut. */
+const EARLIEST_ZONE_MS = 14 * 3_600_000;
+
 /**
- * The tank's tests taken while the plan ran, oldest first: from day 0 (its start date, UTC) to
- * when it was marked done (or now). A draft has none. At most PLAN_READING_LIMIT, the first ones.
+ * The tank's tests taken while the plan ran, oldest first: from the first moment day 0 (its
+ * start date) is day 0 in any time zone (the app keeps those of its own calendar) to when it
+ * was marked done (or now). A draft has none. At most PLAN_READING_LIMIT, the first ones.
  */
 export async function planReadings(ds: Db, own: OwnPlan): Promise<{ readings: Reading[]; total: number }> {
   const { plan } = own;
   if (plan.status === 'draft') return { readings: [], total: 0 };
-  const from = new Date(`${plan.startDate}T00:00:00Z`);
+  const from = new Date(Date.parse(`${plan.startDate}T00:00:00Z`) - EARLIEST_ZONE_MS);
   const where = { tankId: plan.tankId, takenAt: plan.finishedAt ? Between(from, plan.finishedAt) : MoreThanOrEqual(from) };
   const [readings, total] = await ds.getRepository(Reading).findAndCount({ where, order: { takenAt: 'ASC' }, take: PLAN_READING_LIMIT });
   return { readings, total };

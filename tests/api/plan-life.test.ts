@@ -125,7 +125,7 @@ describe('a plan’s life: draft → running → done', () => {
     expect(await stored(foreign.id)).toEqual(before);
   });
 
-  it('answers the tests logged while the plan ran, oldest first: from day 0 to when it was marked done', async () => {
+  it('answers the tests logged while the plan ran, oldest first: from day 0 (in any time zone) to when it was marked done', async () => {
     const ds = ctx.deps.dataSource;
     const { c, tank } = await keeper();
     const plan = await createPlan(ds, tank.id);
@@ -134,13 +134,17 @@ describe('a plan’s life: draft → running → done', () => {
     await start(c, plan.id).expect(200);
     const first = await c.post(`/api/tanks/${tank.id}/readings`, { takenAt: new Date(Date.now() - 60_000).toISOString(), basis: 'N', tan: 0.25, no2: 0.05 }).expect(201);
     const second = await c.post(`/api/tanks/${tank.id}/readings`, { takenAt: new Date().toISOString(), basis: 'N', tan: 0.5 }).expect(201);
+    // Day 0 starts up to 14 h before UTC midnight (UTC+14): a test then is day 0 in the keeper's own calendar.
+    const midnight = Date.parse(`${today()}T00:00:00Z`);
+    const east = await createReading(ds, tank.id, { takenAt: new Date(midnight - 10 * 3_600_000), tanMgN: 0.2 });
+    await createReading(ds, tank.id, { takenAt: new Date(midnight - 15 * 3_600_000), tanMgN: 0.3 });
     const running = planReadingsSchema.parse((await c.get(`/api/plans/${plan.id}/readings`).expect(200)).body);
-    expect(running.readings.map((r) => r.id)).toEqual([first.body.id, second.body.id]);
-    expect(running.total).toBe(2);
+    expect(running.readings.map((r) => r.id)).toEqual([east.id, first.body.id, second.body.id]);
+    expect(running.total).toBe(3);
     await finish(c, plan.id).expect(200);
     // A test after the end is not the plan's.
     await createReading(ds, tank.id, { takenAt: new Date(Date.now() + 60_000), tanMgN: 0.1 });
     const done = planReadingsSchema.parse((await c.get(`/api/plans/${plan.id}/readings`).expect(200)).body);
-    expect(done.readings.map((r) => r.id)).toEqual([first.body.id, second.body.id]);
+    expect(done.readings.map((r) => r.id)).toEqual([east.id, first.body.id, second.body.id]);
   });
 });
