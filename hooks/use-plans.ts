@@ -6,8 +6,10 @@ import {
   planDetailSchema,
   planForecastResponseSchema,
   planListSchema,
+  planReadingsSchema,
   type PlanCreateInput,
   type PlanPatchInput,
+  type PlanStartInput,
 } from '@/shared/schemas/plan';
 import { additionResponseSchema, removalResponseSchema, rescueResponseSchema } from '@/simulation/advice/schemas';
 import type { z } from 'zod';
@@ -71,6 +73,30 @@ export function useUpdatePlan(id: string) {
       queryClient.setQueryData(planKeys.detail(id), saved);
       return invalidate();
     },
+  });
+}
+
+/** Starts a draft (day 0 = the keeper's today) or marks a running plan done. */
+export function usePlanTransition(id: string) {
+  const queryClient = useQueryClient();
+  const invalidate = useInvalidatePlans();
+  return useMutation({
+    mutationFn: (action: { kind: 'start'; body: PlanStartInput } | { kind: 'finish' }) =>
+      apiRequest(`${planUrl(id)}/${action.kind}`, { method: 'POST', body: action.kind === 'start' ? action.body : {}, schema: planDetailSchema }),
+    onSuccess: (saved) => {
+      queryClient.setQueryData(planKeys.detail(id), saved);
+      return invalidate();
+    },
+  });
+}
+
+/** The tank's tests taken while the plan ran, oldest first (none for a draft). */
+export function usePlanReadings(plan: { id: string; tankId: string; status: string } | undefined) {
+  return useQuery({
+    queryKey: tankKeys.planReadings(plan?.tankId ?? '', plan?.id ?? ''),
+    queryFn: ({ signal }) => apiRequest(`${planUrl(plan!.id)}/readings`, { schema: planReadingsSchema, signal }),
+    staleTime: PLAN_STALE_MS,
+    enabled: plan !== undefined && plan.status !== 'draft',
   });
 }
 

@@ -26,10 +26,17 @@ export interface PanelLimit {
   label: string;
 }
 
+/** Measured values to mark on a panel (the keeper's tests), each at its own plan day. */
+export interface PanelPoints {
+  key: string;
+  at: readonly { day: number; value: number }[];
+}
+
 export interface PanelInput {
   days: readonly number[];
   series: readonly PanelSeries[];
   limits?: readonly PanelLimit[];
+  points?: readonly PanelPoints[];
   size: PanelSize;
   /** Least y-axis top, so a flat-zero forecast still shows a scale (default 1). */
   minYMax?: number;
@@ -61,6 +68,8 @@ export interface PanelGeometry {
   lines: { key: string; d: string }[];
   bands: { key: string; d: string }[];
   limits: LimitGeometry[];
+  /** The measured points inside the chart's days, in px. */
+  points: { key: string; x: number; y: number; day: number; value: number }[];
   xTicks: Tick[];
   yTicks: Tick[];
 }
@@ -79,8 +88,8 @@ export function finiteMax(lists: readonly (readonly number[])[]): number {
 }
 
 /** [0, top] for the y axis: the highest value, band edge or limit with headroom, made nice. */
-export function yDomainFor(series: readonly PanelSeries[], limits: readonly PanelLimit[] = [], minYMax = 1): [number, number] {
-  const top = finiteMax([...series.map((s) => s.values), ...series.map((s) => s.band?.hi ?? []), limits.map((l) => l.value)]);
+export function yDomainFor(series: readonly PanelSeries[], limits: readonly PanelLimit[] = [], minYMax = 1, points: readonly PanelPoints[] = []): [number, number] {
+  const top = finiteMax([...series.map((s) => s.values), ...series.map((s) => s.band?.hi ?? []), limits.map((l) => l.value), ...points.map((p) => p.at.map((a) => a.value))]);
   const wanted = Math.max(top * HEADROOM, minYMax > 0 ? minYMax : 1);
   const nice = scaleLinear().domain([0, wanted]).nice(4).domain();
   return [0, nice[1]];
@@ -115,7 +124,7 @@ export function panelGeometry(input: PanelInput): PanelGeometry {
   const height = Math.max(0, input.size.height);
   const plot = { left: pad.left, top: pad.top, right: Math.max(pad.left, width - pad.right), bottom: Math.max(pad.top, height - pad.bottom) };
   const xDomain = xDomainFor(input.days);
-  const yDomain = yDomainFor(input.series, input.limits, input.minYMax);
+  const yDomain = yDomainFor(input.series, input.limits, input.minYMax, input.points);
   const x = scaleLinear().domain(xDomain).range([plot.left, plot.right]);
   const y = scaleLinear().domain(yDomain).range([plot.bottom, plot.top]).clamp(true);
   const days = input.days;
@@ -149,6 +158,9 @@ export function panelGeometry(input: PanelInput): PanelGeometry {
       const labelY = ly - 4 < plot.top + 10 ? ly + 12 : ly - 4;
       return { key: l.key, y: ly, x1: plot.left, x2: plot.right, label: l.label, labelX: plot.right - 4, labelY };
     });
+  const points = (input.points ?? []).flatMap((p) =>
+    p.at.filter((a) => finite(a.day) && finite(a.value) && a.day >= xDomain[0] && a.day <= xDomain[1]).map((a) => ({ key: p.key, x: x(a.day), y: y(a.value), day: a.day, value: a.value })),
+  );
   return {
     width,
     height,
@@ -158,6 +170,7 @@ export function panelGeometry(input: PanelInput): PanelGeometry {
     lines,
     bands,
     limits,
+    points,
     xTicks: ticksOf(xDomain, Math.max(2, Math.floor((plot.right - plot.left) / 60)), x),
     yTicks: ticksOf(yDomain, 4, y),
   };

@@ -60,6 +60,20 @@ export function applySchedule(events: readonly ScenarioEvent[], schedule: readon
   return sortEvents([...kept, ...adds]);
 }
 
+/**
+ * The events a list shows for a plan: the unsaved draft's while there is one (so a count never
+ * says "0 events" for a plan being filled in), else the saved ones. A finished plan's lists
+ * pass no draft: it shows what it ran.
+ */
+export function shownEvents(draft: PlanDraft | undefined, saved: readonly ScenarioEvent[]): { events: readonly ScenarioEvent[]; unsaved: boolean } {
+  return draft?.dirty ? { events: draft.events, unsaved: true } : { events: saved, unsaved: false };
+}
+
+/** "1 event", "3 events". */
+export function eventCount(n: number): string {
+  return `${n} ${n === 1 ? 'event' : 'events'}`;
+}
+
 export const useDraftStore = create<DraftState>((set) => {
   const edit = (planId: string, f: (d: PlanDraft) => Partial<PlanDraft>) =>
     set((s) => {

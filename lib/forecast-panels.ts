@@ -6,7 +6,7 @@ import type { ForecastView } from '@/shared/schemas/plan';
 import type { NitrogenBasis } from '@/shared/schemas/preferences';
 import { nitrogenIn, nitrogenUnit } from '@/lib/units-format';
 import { plainNumber } from '@/shared/forecast-view';
-import type { PanelLimit, PanelSeries } from '@/lib/chart-geometry';
+import type { PanelLimit, PanelPoints, PanelSeries } from '@/lib/chart-geometry';
 
 export type PanelKey = 'ammonia' | 'nitrite' | 'free-ammonia' | 'nitrate' | 'capacity';
 
@@ -19,7 +19,22 @@ export interface ForecastPanel {
   unit: string;
   series: (PanelSeries & { label: string })[];
   limits: PanelLimit[];
+  /** The keeper's tests on this panel (none on the free-ammonia and capacity panels). */
+  points: PanelPoints[];
   minYMax: number;
+}
+
+/** A logged test on the forecast's day axis, values as stored (mg N/L). */
+export interface ChartReading {
+  day: number;
+  tanMgN: number | null;
+  no2MgN: number | null;
+  no3MgN: number | null;
+}
+
+function pointsOf(readings: readonly ChartReading[], key: 'tanMgN' | 'no2MgN' | 'no3MgN', f: (x: number) => number): PanelPoints[] {
+  const at = readings.flatMap((r) => (r[key] === null ? [] : [{ day: r.day, value: f(r[key]) }]));
+  return at.length > 0 ? [{ key: 'tested', at }] : [];
 }
 
 type Spread = { p10: number[]; p90: number[] } | undefined;
@@ -30,7 +45,7 @@ const band = (b: Spread, f: (x: number) => number) => (b ? { lo: b.p10.map(f), h
  * Total ammonia and nitrite each get their own scale: nitrite's limit is a tenth of ammonia's
  * peak in a typical change, and on a shared axis it would read as a flat line.
  */
-export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand = true): ForecastPanel[] {
+export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand = true, readings: readonly ChartReading[] = []): ForecastPanel[] {
   const tan = (x: number) => nitrogenIn(x, 'tanMgN', basis);
   const no2 = (x: number) => nitrogenIn(x, 'no2MgN', basis);
   const no3 = (x: number) => nitrogenIn(x, 'no3MgN', basis);
@@ -42,6 +57,7 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
       unit: nitrogenUnit('tanMgN', basis),
       series: [{ key: 'tan', label: 'Total ammonia', values: v.tanMgN.map(tan), band: band(b?.tanMgN, tan) }],
       limits: [{ key: 'tanChronic', value: tan(v.limits.tanChronicMgN), label: `limit ${plainNumber(tan(v.limits.tanChronicMgN))}` }],
+      points: pointsOf(readings, 'tanMgN', tan),
       minYMax: 0.2,
     },
     {
@@ -50,6 +66,7 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
       unit: nitrogenUnit('no2MgN', basis),
       series: [{ key: 'no2', label: 'Nitrite', values: v.no2MgN.map(no2), band: band(b?.no2MgN, no2) }],
       limits: [{ key: 'no2', value: no2(v.limits.no2MgN), label: `limit ${plainNumber(no2(v.limits.no2MgN))}` }],
+      points: pointsOf(readings, 'no2MgN', no2),
       // The limit line itself sets the scale when nitrite stays low (yDomainFor includes limits).
       minYMax: no2(v.limits.no2MgN) * 0.5,
     },
@@ -59,6 +76,7 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
       unit: 'mg NH3/L',
       series: [{ key: 'freeNh3', label: 'Free ammonia', values: v.freeNh3MgL, band: band(b?.freeNh3MgL, (x) => x) }],
       limits: [{ key: 'freeNh3', value: v.limits.freeNh3MgNH3, label: `limit ${plainNumber(v.limits.freeNh3MgNH3)}` }],
+      points: [],
       minYMax: 0.005,
     },
     {
@@ -67,6 +85,7 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
       unit: nitrogenUnit('no3MgN', basis),
       series: [{ key: 'no3', label: 'Nitrate', values: v.no3MgN.map(no3), band: band(b?.no3MgN, no3) }],
       limits: [],
+      points: pointsOf(readings, 'no3MgN', no3),
       minYMax: 5,
     },
     {
@@ -79,6 +98,7 @@ export function forecastPanels(v: ForecastView, basis: NitrogenBasis, showBand =
         { key: 'load', label: 'Ammonia from fish and food', values: v.loadMgNPerDay },
       ],
       limits: [],
+      points: [],
       minYMax: 1,
     },
   ];

@@ -13,6 +13,8 @@ export const tankKeys = {
   /** A page of a tank's water tests (under the tank, so invalidating `all` refreshes them too). */
   readings: (id: string, page: number, pageSize: number) => [...tankKeys.all, 'readings', id, page, pageSize] as const,
   readingsOf: (id: string) => [...tankKeys.all, 'readings', id] as const,
+  /** The tests taken while a plan ran (under the tank too: a new test refreshes them). */
+  planReadings: (tankId: string, planId: string) => [...tankKeys.all, 'plan-readings', tankId, planId] as const,
 };
 
 export const preferenceKeys = {

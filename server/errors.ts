@@ -34,6 +34,8 @@ export const csrfRejected = (message = 'This request was refused because it did 
   new AppError(403, 'csrf', message);
 export const notFound = (message = 'Not found.') => new AppError(404, 'not_found', message);
 export const conflict = (message: string, fields?: Record<string, string>) => new AppError(409, 'conflict', message, fields);
+/** A plan asked to move where its life does not go (start a finished plan, finish a draft…); the message says why. */
+export const planStateRefused = (message: string, fields?: Record<string, string>) => new AppError(409, 'plan_state', message, fields);
 export const unprocessable = (message: string) => new AppError(422, 'unprocessable', message);
 export const payloadTooLarge = () => new AppError(413, 'payload_too_large', 'The request body is too large.');
 export const unsupportedMediaType = (message = 'Send the request body as JSON (Content-Type: application/json).') =>

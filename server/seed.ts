@@ -209,8 +209,10 @@ export async function seedDemo(ds: DataSource, now = new Date()): Promise<DemoSi
       {
         tankId: community.id,
         name: 'Harlequin rasboras in three batches',
-        startDate: isoDate(now, 2),
+        // Started two days ago: the demo shows a plan on its way, with its first tests.
+        startDate: isoDate(now, -2),
         status: 'active',
+        startedAt: new Date(`${isoDate(now, -2)}T08:00:00Z`),
         events: events([
           { type: 'add-fish', day: 0, fish: { species: species('harlequin-rasbora'), count: 4, lengthCm: 3 } },
           { type: 'water-change', day: 4, percent: 25 },

@@ -1,11 +1,11 @@
 import { memo, useLayoutEffect, useMemo, useState } from 'react';
 import { View, type LayoutChangeEvent } from 'react-native';
-import Svg, { G, Line, Path, Text as SvgText } from 'react-native-svg';
+import Svg, { Circle, G, Line, Path, Text as SvgText } from 'react-native-svg';
 import type { ColorToken } from '@/constants/theme';
 import { useTheme } from '@/hooks/use-theme';
 import { ChartGrid, ChartLimitLines } from '@/components/forecast/chart-frame';
 import { eventMarkers, markedPadding, markerLegend, panelGeometry, xDomainFor, type ChartEvent, type EventMarker, type PanelGeometry } from '@/lib/chart-geometry';
-import { forecastPanels, MAIN_PANELS, type ForecastPanel, type PanelKey } from '@/lib/forecast-panels';
+import { forecastPanels, MAIN_PANELS, type ChartReading, type ForecastPanel, type PanelKey } from '@/lib/forecast-panels';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import { describeEvent } from '@/components/plans/event-fields';
 import { Button } from '@/components/ui/button';
@@ -52,7 +52,7 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
   const { colors } = useTheme();
   const { g, markers } = useMemo(() => {
     const padding = markedPadding(events.length > 0);
-    const geometry = panelGeometry({ days, series: panel.series, limits: panel.limits, size: { width, height: PANEL_HEIGHT, padding }, minYMax: panel.minYMax });
+    const geometry = panelGeometry({ days, series: panel.series, limits: panel.limits, points: panel.points, size: { width, height: PANEL_HEIGHT, padding }, minYMax: panel.minYMax });
     return { g: geometry, markers: eventMarkers(events, geometry) };
   }, [panel, days, width, events]);
   return (
@@ -60,7 +60,7 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
       <AppText variant="caption" weight="bold">
         {`${panel.title} (${panel.unit})`}
       </AppText>
-      {panel.series.length > 1 ? (
+      {panel.series.length > 1 || g.points.length > 0 ? (
         <View style={{ flexDirection: 'row', flexWrap: 'wrap', columnGap: 12 }}>
           {panel.series.map((s) => (
             <View key={s.key} style={{ flexDirection: 'row', alignItems: 'center', gap: 4 }}>
@@ -72,6 +72,16 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
               </AppText>
             </View>
           ))}
+          {g.points.length > 0 ? (
+            <View style={{ flexDirection: 'row', alignItems: 'center', gap: 4 }}>
+              <Svg width={12} height={12} aria-hidden>
+                <Circle cx={6} cy={6} r={4} fill={colors.surface} stroke={colors.text} strokeWidth={2} />
+              </Svg>
+              <AppText variant="caption" tone="textMuted">
+                Your tests
+              </AppText>
+            </View>
+          ) : null}
         </View>
       ) : null}
       <Svg width={g.width} height={g.height} aria-hidden testID={`chart-svg-${panel.key}`}>
@@ -92,12 +102,17 @@ function Panel({ panel, days, width, events }: { panel: ForecastPanel; days: rea
             strokeDasharray={SERIES_STYLE[l.key]?.dash}
           />
         ))}
+        {g.points.map((pt, i) => (
+          // Hollow rings over the lines: a test reads apart from the forecast without colour.
+          <Circle key={`tested-${i}`} testID={`chart-tested-${panel.key}`} cx={pt.x} cy={pt.y} r={4.5} fill={colors.surface} stroke={colors.text} strokeWidth={2} />
+        ))}
       </Svg>
     </PrintHint>
   );
 }
 
 const NO_EVENTS: readonly ChartEvent[] = [];
+const NO_READINGS: readonly ChartReading[] = [];
 
 export interface ForecastChartProps {
   view: ForecastView;
@@ -106,6 +121,8 @@ export interface ForecastChartProps {
   showBand: boolean;
   /** The plan's events, marked on the time axis and listed under the charts. */
   events?: readonly ScenarioEvent[];
+  /** The keeper's tests since the plan started, drawn as rings beside the forecast lines. */
+  readings?: readonly ChartReading[];
   /** Only these panels, without the "more charts" toggle (the printed plan). */
   only?: readonly PanelKey[];
   testID?: string;
@@ -115,12 +132,12 @@ export interface ForecastChartProps {
  * The forecast as small charts over the same days: total ammonia and nitrite each on its own
  * scale first; free ammonia, nitrate and the filter's capacity behind a toggle.
  */
-export const ForecastChart = memo(function ForecastChart({ view, basis, showBand, events, only, testID = 'forecast-chart' }: ForecastChartProps) {
+export const ForecastChart = memo(function ForecastChart({ view, basis, showBand, events, readings = NO_READINGS, only, testID = 'forecast-chart' }: ForecastChartProps) {
   const { space } = useTheme();
   const [width, setWidth] = useState(0);
   const [more, setMore] = useState(false);
   if (typeof performance !== 'undefined') performance.mark?.(MARK_CHART_START);
-  const panels = useMemo(() => forecastPanels(view, basis, showBand), [view, basis, showBand]);
+  const panels = useMemo(() => forecastPanels(view, basis, showBand, readings), [view, basis, showBand, readings]);
   const chartEvents = useMemo(() => (events ? events.map((e) => ({ day: e.day, label: describeEvent(e) })) : NO_EVENTS), [events]);
   // The legend's numbers are the markers' numbers: the same function numbers both.
   const legend = useMemo(() => eventMarkers(chartEvents, { plot: { left: 0, top: 0, right: 1, bottom: 1 }, xDomain: xDomainFor(view.days) }), [chartEvents, view.days]);
@@ -151,7 +168,7 @@ export const ForecastChart = memo(function ForecastChart({ view, basis, showBand
         </View>
       ) : null}
       <AppText variant="caption" tone="textMuted">
-        {`Across: days from the start (day 0). Red dashed lines: the limits.${legend.length > 0 ? ' Dotted lines with a number: the events listed above.' : ''}`}
+        {`Across: days from the start (day 0). Red dashed lines: the limits.${legend.length > 0 ? ' Dotted lines with a number: the events listed above.' : ''}${readings.length > 0 ? ' Rings: your tests.' : ''}`}
       </AppText>
       {only ? null : (
         <Button

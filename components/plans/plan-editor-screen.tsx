@@ -4,17 +4,20 @@ import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { ScenarioTank } from '@/shared/tank-scenario';
 import { planCheckDays } from '@/shared/plan-check-days';
-import { usePlan, usePlanForecast, useUpdatePlan } from '@/hooks/use-plans';
+import { defaultHorizonDays } from '@/shared/tank-scenario';
+import { usePlan, usePlanForecast, usePlanReadings, useUpdatePlan } from '@/hooks/use-plans';
 import { useTankDetail } from '@/hooks/use-tanks';
 import { useLiveForecast } from '@/hooks/use-forecast';
 import { planForecastVersion } from '@/lib/query-keys';
 import { usePreferences } from '@/hooks/use-preferences';
 import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
-import { applySchedule, useDraftStore } from '@/lib/draft-store';
+import { applySchedule, eventCount, useDraftStore } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
-import { basisWords, formatNitrogen, formatVolume } from '@/lib/units-format';
+import { basisWords, formatVolume } from '@/lib/units-format';
 import { livestockFish } from '@/components/tanks/livestock-stocking';
+import { planProgress, readingDay, readingsBesideForecast } from '@/lib/plan-progress';
+import { describeEvent } from '@/components/plans/event-fields';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
 import { ShareLinkPanel } from '@/components/share/share-link-panel';
@@ -37,6 +40,9 @@ import { fishOnDay } from '@/shared/fish-on-day';
 import { fishName } from '@/components/plans/fish-groups';
 import { planErrors } from '@/components/plans/plan-errors';
 import { EventTimeline } from '@/components/plans/event-timeline';
+import { PlanLifeCard } from '@/components/plans/plan-life-card';
+import { PlanCheckDaysCard } from '@/components/plans/plan-check-days-card';
+import { ReadingsBesideForecast } from '@/components/plans/readings-beside-forecast';
 
 const NO_EVENTS: ScenarioEvent[] = [];
 const NO_FIELDS: Record<string, string> = {};
@@ -63,7 +69,10 @@ function sliderTarget(events: readonly ScenarioEvent[], selected: number | null)
   return events.findIndex((e) => e.type === 'add-fish');
 }
 
-/** A plan: its timeline of events, the live forecast while editing, advice, and saving. */
+/**
+ * A plan: its timeline of events, the live forecast while editing, advice, and saving; once
+ * started, its test days and the tank's tests beside the forecast; once done, all read-only.
+ */
 export function PlanEditorScreen({ id }: { id: string }) {
   const plan = usePlan(id);
   const tank = useTankDetail(plan.data?.tankId ?? '');
@@ -96,8 +105,10 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const { ensureDraft, setEvents, updateEvent, addEvent, removeEvent, setName, select, markSaved, discard } = useDraftStore.getState();
   useEffect(() => ensureDraft(planId, saved), [planId, saved, ensureDraft]);
 
-  const events = draft?.events ?? NO_EVENTS;
-  const dirty = draft?.dirty ?? false;
+  // A finished plan shows what it ran, never a leftover unsaved draft.
+  const finished = saved.status === 'done';
+  const events = finished ? saved.events : (draft?.events ?? NO_EVENTS);
+  const dirty = !finished && (draft?.dirty ?? false);
   const sTank = useMemo(() => scenarioTankOf(tank), [tank]);
   const tankFish = tank.livestock.reduce((n, l) => n + l.count, 0);
   const live = useLiveForecast(sTank, draft ? events : undefined, saved.startDate);
@@ -106,6 +117,19 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   const shownFromServer = !dirty && server.data !== undefined;
   const view = shownFromServer ? server.data!.forecast : live.view;
   const checkDays = useMemo(() => planCheckDays(events, saved.startDate, view ?? undefined), [events, saved.startDate, view]);
+  const readOnly = finished;
+  const planReadings = usePlanReadings(saved);
+  // The server sends every test that could be day 0 somewhere; keep those of this calendar.
+  const readings = useMemo(() => planReadings.data?.readings.filter((r) => readingDay(r.takenAt, saved.startDate) >= 0), [planReadings.data, saved.startDate]);
+  // Where a started plan stands, against its saved check days and the tests since day 0.
+  const progress = useMemo(
+    () => (saved.status === 'draft' ? null : planProgress(saved, readings ?? [], new Date(), defaultHorizonDays(saved.events))),
+    [saved, readings],
+  );
+  const chartReadings = useMemo(
+    () => (readings ?? []).map((r) => ({ day: readingDay(r.takenAt, saved.startDate), tanMgN: r.tanMgN, no2MgN: r.no2MgN, no3MgN: r.no3MgN })),
+    [readings, saved.startDate],
+  );
 
   const target = sliderTarget(events, selected);
   const targetEvent = target >= 0 ? (events[target] as Extract<ScenarioEvent, { type: 'add-fish' }>) : null;
@@ -134,6 +158,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       { name: draft?.name ?? saved.name, events },
       { onSuccess: (p) => markSaved(planId, p.updatedAt) },
     );
+  const saveNow = async () => markSaved(planId, (await save.mutateAsync({ name: draft?.name ?? saved.name, events })).updatedAt);
   const saveErrors = save.error && isApiRequestError(save.error) ? save.error.fields : NO_FIELDS;
   // A refused save names events by path: the sentences say which event, the form shows the field.
   const saveProblems = useMemo(() => planErrors(saveErrors, events, ['name']), [saveErrors, events]);
@@ -146,12 +171,13 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           <Heading testID="plan-name">{draft?.name ?? saved.name}</Heading>
           <StatusPill tone={planStatusLabel[saved.status].tone} label={planStatusLabel[saved.status].label} testID="plan-status" />
         </View>
-        <AppText tone="textMuted">{`${saved.tankName} · starts ${saved.startDate}`}</AppText>
+        <AppText tone="textMuted">{`${saved.tankName} · ${saved.status === 'draft' ? 'not started' : `day 0: ${saved.startDate}`} · ${eventCount(events.length)}${dirty ? ' (unsaved changes)' : ''}`}</AppText>
         <TextLink href={`/tanks/${saved.tankId}`} label="Open the tank" testID="plan-tank-link" />
         <TextLink href={`/print/plan/${planId}`} label="Printable plan" testID="plan-print-link" />
       </Card>
   );
-  const sliderCard = targetEvent ? (
+  const lifeCard = <PlanLifeCard plan={saved} tank={tank} progress={progress} dirty={dirty} eventCount={events.length} save={saveNow} />;
+  const sliderCard = targetEvent && !readOnly ? (
         <Card testID="plan-slider-card">
           <CountSlider
             label={`${fishName(targetGroup?.species, targetGroup?.name)} added on day ${targetEvent.day}`}
@@ -164,7 +190,19 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           <AppText variant="caption" tone="textMuted">The forecast redraws as you move it; save to keep the change.</AppText>
         </Card>
   ) : null;
-  const planColumn = (
+  const planColumn = readOnly ? (
+    <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
+      <Card testID="plan-events">
+        <Heading level={2}>What happened when</Heading>
+        <View role="list" testID="event-timeline" style={{ gap: space.xs }}>
+          {[...events].sort((a, b) => a.day - b.day).map((e, i) => (
+            <AppText key={i} role="listitem">{`Day ${e.day}: ${describeEvent(e)}`}</AppText>
+          ))}
+        </View>
+      </Card>
+      <PlanCheckDaysCard checkDays={checkDays} progress={progress?.checkDays ?? null} basis={prefs.nitrogenBasis} />
+    </View>
+  ) : (
     <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
       <Card testID="plan-events">
         <Heading level={2}>What happens when</Heading>
@@ -193,19 +231,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         </View>
       </Card>
 
-      <Card testID="plan-check-days">
-        <Heading level={2}>When to test</Heading>
-        {checkDays.length === 0 ? <AppText tone="textMuted">Add an event to see the test days.</AppText> : null}
-        {checkDays.slice(0, 12).map((d) => (
-          <AppText key={d.day} testID={`check-day-${d.day}`}>
-            {`Day ${d.day} (${d.date}): ${d.reasons.join('; ')}`}
-            {d.expected
-              ? `. The forecast says about ${formatNitrogen(d.expected.tanMgN, 'tanMgN', prefs.nitrogenBasis)} ammonia and ${formatNitrogen(d.expected.no2MgN, 'no2MgN', prefs.nitrogenBasis)} nitrite (${basisWords(prefs.nitrogenBasis)}).`
-              : ''}
-          </AppText>
-        ))}
-        {checkDays.length > 12 ? <AppText tone="textMuted">{`…and ${checkDays.length - 12} more on the printable plan.`}</AppText> : null}
-      </Card>
+      <PlanCheckDaysCard checkDays={checkDays} progress={dirty ? null : progress?.checkDays ?? null} basis={prefs.nitrogenBasis} />
     </View>
   );
 
@@ -220,7 +246,10 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         {view ? (
           <>
             <ForecastVerdict view={view} basis={prefs.nitrogenBasis} />
-            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} events={events} />
+            <ForecastChart view={view} basis={prefs.nitrogenBasis} showBand={shownFromServer} events={events} readings={chartReadings} />
+            {saved.status !== 'draft' && readings ? (
+              <ReadingsBesideForecast rows={readingsBesideForecast(readings, view, saved.startDate)} basis={prefs.nitrogenBasis} total={planReadings.data?.total ?? 0} finished={readOnly} />
+            ) : null}
           </>
         ) : (
           <Loading label="Running the forecast…" testID="forecast-loading" />
@@ -237,7 +266,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
         ) : null}
       </Card>
   );
-  const adviceCard = (
+  const adviceCard = readOnly ? null : (
       <Card>
         <AdvicePanel
           tank={tank}
@@ -259,6 +288,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
     <View style={{ flexDirection: 'row', gap: space.lg, alignItems: 'flex-start' }} testID="plan-wide">
       <View style={{ gap: space.lg, flex: 1, minWidth: 0 }}>
         {headerCard}
+        {lifeCard}
         {sliderCard}
         {planColumn}
       </View>
@@ -272,6 +302,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
   ) : (
     <View style={{ gap: space.lg }} testID="plan-narrow">
       {headerCard}
+      {lifeCard}
       {sliderCard}
       {forecastCard}
       {planColumn}

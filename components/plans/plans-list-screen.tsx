@@ -16,6 +16,8 @@ import { AppText, Heading } from '@/components/ui/text';
 import { Loading, LoadError } from '@/components/ui/load-state';
 import { planStatusLabel } from '@/components/tanks/tank-labels';
 import { describeEvent } from '@/components/plans/event-fields';
+import { eventCount, shownEvents, useDraftStore } from '@/lib/draft-store';
+import type { PlanDetail } from '@/shared/schemas/plan';
 
 const today = () => new Date().toISOString().slice(0, 10);
 
@@ -50,13 +52,26 @@ export function PlansListScreen({ tankId }: { tankId?: string }) {
               <AppText weight="bold">{p.name}</AppText>
               <StatusPill tone={planStatusLabel[p.status].tone} label={planStatusLabel[p.status].label} />
             </View>
-            <AppText tone="textMuted">{`${p.tankName} · starts ${p.startDate} · ${p.events.length} events`}</AppText>
-            {p.events[0] ? <AppText variant="caption">{`First: day ${p.events[0].day}, ${describeEvent(p.events[0])}`}</AppText> : null}
+            <PlanListFacts plan={p} />
           </PressableLink>
         ))}
       </View>
       <NewPlanForm initialTankId={tankId} />
     </Screen>
+  );
+}
+
+/** Tank, day 0 and events of one listed plan; an unsaved draft's events count. */
+function PlanListFacts({ plan }: { plan: PlanDetail }) {
+  const draft = useDraftStore((s) => s.drafts[plan.id]);
+  const { events, unsaved } = shownEvents(plan.status === 'done' ? undefined : draft, plan.events);
+  const first = [...events].sort((a, b) => a.day - b.day)[0];
+  const when = plan.status === 'draft' ? 'not started' : `day 0: ${plan.startDate}`;
+  return (
+    <>
+      <AppText tone="textMuted" testID={`plans-item-${plan.id}-facts`}>{`${plan.tankName} · ${when} · ${eventCount(events.length)}${unsaved ? ' (unsaved changes)' : ''}`}</AppText>
+      {first ? <AppText variant="caption">{`First: day ${first.day}, ${describeEvent(first)}`}</AppText> : null}
+    </>
   );
 }
 

@@ -2,7 +2,7 @@ import { View } from 'react-native';
 import { useMe } from '@/hooks/use-session';
 import { useTankList } from '@/hooks/use-tanks';
 import { usePreferences } from '@/hooks/use-preferences';
-import { PressableLink } from '@/components/ui/pressable-link';
+import { ButtonLink } from '@/components/ui/button-link';
 import { useTheme } from '@/hooks/use-theme';
 import { Screen } from '@/components/ui/screen';
 import { AppText, Heading } from '@/components/ui/text';
@@ -58,27 +58,5 @@ export function HomeScreen() {
 
 /** The way to a new tank, as a button-sized link (≥ 44 px). */
 function NewTankLink() {
-  const { colors, radii, space, layout } = useTheme();
-  return (
-    <PressableLink
-      href="/tanks/new"
-      testID="home-new-tank"
-      accessibilityRole="link"
-      accessibilityLabel="Add a new tank"
-      style={({ pressed, focused }) => ({
-        alignSelf: 'flex-start',
-        minHeight: layout.minTouchTarget,
-        justifyContent: 'center',
-        paddingHorizontal: space.xl,
-        borderRadius: radii.md,
-        borderWidth: 2,
-        borderColor: focused ? colors.focus : 'transparent',
-        backgroundColor: pressed ? colors.primaryPressed : colors.primary,
-      })}
-    >
-      <AppText weight="bold" tone="onPrimary">
-        + New tank
-      </AppText>
-    </PressableLink>
-  );
+  return <ButtonLink href="/tanks/new" label="+ New tank" accessibilityLabel="Add a new tank" testID="home-new-tank" />;
 }

@@ -2,7 +2,10 @@ import { Column, CreateDateColumn, Entity, JoinColumn, ManyToOne, PrimaryGenerat
 import type { PlanEvent, PlanStatus } from '../../shared/schemas/tank.js';
 import { Tank } from './tank.js';
 
-/** A change plan: a timeline of events (days counted from `startDate`). */
+/**
+ * A change plan: a timeline of events (days counted from `startDate`). Its life is draft →
+ * active (running, from `startedAt`) → done (`finishedAt`); the rules are in services/plans.ts.
+ */
 @Entity({ name: 'plans' })
 export class Plan {
   @PrimaryGeneratedColumn('uuid')
@@ -24,6 +27,14 @@ export class Plan {
 
   @Column({ type: 'varchar', length: 16, default: 'draft' })
   status: PlanStatus;
+
+  /** When the keeper started it (day 0 is `startDate`); null while a draft. */
+  @Column({ type: 'timestamptz', name: 'started_at', nullable: true })
+  startedAt: Date | null;
+
+  /** When the keeper marked it done; null until then. */
+  @Column({ type: 'timestamptz', name: 'finished_at', nullable: true })
+  finishedAt: Date | null;
 
   @Column({ type: 'jsonb', default: () => "'[]'::jsonb" })
   events: PlanEvent[];

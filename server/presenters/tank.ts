@@ -29,7 +29,15 @@ export function presentTankSummaryWithStatus(row: TankSummaryRow, now: Date): Ta
 }
 
 export function presentPlan(p: Plan): PlanItem {
-  return { id: p.id, name: p.name, startDate: p.startDate, status: p.status, events: p.events };
+  return {
+    id: p.id,
+    name: p.name,
+    startDate: p.startDate,
+    status: p.status,
+    startedAt: p.startedAt?.toISOString() ?? null,
+    finishedAt: p.finishedAt?.toISOString() ?? null,
+    events: p.events,
+  };
 }
 
 export function presentTankDetail({ tank, livestock, readings, plans, fit }: TankDetailRows): TankDetail {

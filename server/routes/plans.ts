@@ -1,14 +1,14 @@
 import { Router } from 'express';
-import { planCreateSchema, planPatchSchema } from '../../shared/schemas/plan.js';
+import { planCreateSchema, planFinishSchema, planPatchSchema, planStartSchema } from '../../shared/schemas/plan.js';
 import type { AppDeps } from '../deps.js';
 import { currentUser, requireAuth } from '../middleware/require-auth.js';
 import { validBody, validateBody } from '../middleware/validate.js';
 import { requestDb } from '../middleware/request-db.js';
-import { presentPlanDetail } from '../presenters/plan.js';
-import { createPlan, deletePlan, listOwnPlans, listTankPlans, updatePlan } from '../services/plans.js';
+import { presentPlanDetail, presentPlanReadings } from '../presenters/plan.js';
+import { createPlan, deletePlan, finishPlan, listOwnPlans, listTankPlans, planReadings, startPlan, updatePlan } from '../services/plans.js';
 import { ownPlanParam, ownTankParam } from './params.js';
 
-/** Plans CRUD: /tanks/:tankId/plans and /plans/:planId (mounted on /api). */
+/** Plans CRUD: /tanks/:tankId/plans and /plans/:planId, and a plan's life: start, finish, its readings (mounted on /api). */
 export function plansRouter({ dataSource: ds, config }: AppDeps): Router {
   const router = Router();
   const auth = requireAuth(ds, config);
@@ -37,6 +37,22 @@ export function plansRouter({ dataSource: ds, config }: AppDeps): Router {
     const own = await ownPlanParam(ds, req);
     const plan = await updatePlan(ds, own, validBody(req, planPatchSchema));
     res.json(presentPlanDetail({ plan, tank: own.tank }));
+  });
+
+  router.post('/plans/:planId/start', auth, validateBody(planStartSchema), async (req, res) => {
+    const own = await ownPlanParam(ds, req);
+    const plan = await startPlan(requestDb(req, ds), own, validBody(req, planStartSchema), new Date());
+    res.json(presentPlanDetail({ plan, tank: own.tank }));
+  });
+
+  router.post('/plans/:planId/finish', auth, validateBody(planFinishSchema), async (req, res) => {
+    const own = await ownPlanParam(ds, req);
+    const plan = await finishPlan(requestDb(req, ds), own, new Date());
+    res.json(presentPlanDetail({ plan, tank: own.tank }));
+  });
+
+  router.get('/plans/:planId/readings', auth, async (req, res) => {
+    res.json(presentPlanReadings(await planReadings(ds, await ownPlanParam(ds, req))));
   });
 
   router.delete('/plans/:planId', auth, async (req, res) => {

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
-import { independentQueries, type Db } from '../data-source.js';
+import { Between, MoreThanOrEqual } from 'typeorm';
+import { independentQueries, isUniqueViolation, type Db } from '../data-source.js';
 import { parseScenario, ScenarioError, type ScenarioEvent } from '../../simulation/scenario.js';
 import type { PlanStatus } from '../../shared/schemas/tank.js';
 import { MAX_HORIZON_DAYS, tankScenario, type ScenarioTank } from '../../shared/tank-scenario.js';
@@ -12,7 +13,7 @@ import { Livestock } from '../entities/livestock.js';
 import { Plan } from '../entities/plan.js';
 import { Reading } from '../entities/reading.js';
 import { Tank } from '../entities/tank.js';
-import { validationFailed } from '../errors.js';
+import { planStateRefused, validationFailed } from '../errors.js';
 
 /** A plan with the tank it belongs to (the owner already checked). */
 export interface OwnPlan {
@@ -132,22 +133,102 @@ export async function checkEventsFitTank(ds: Db, tank: Tank, events: ScenarioEve
 export interface PlanFields {
   name: string;
   startDate: string;
-  status: PlanStatus;
   events: ScenarioEvent[];
 }
 
-export async function createPlan(ds: Db, tank: Tank, fields: PlanFields): Promise<Plan> {
+/** A new plan is always a draft: its status moves only through `startPlan` and `finishPlan`. */
+export async function createPlan(ds: Db, tank: Tank, fields: PlanFields & { status?: 'draft' }): Promise<Plan> {
   await checkEventsFitTank(ds, tank, fields.events);
   const repo = ds.getRepository(Plan);
-  return repo.save(repo.create({ tankId: tank.id, ...fields }));
+  return repo.save(repo.create({ tankId: tank.id, name: fields.name, startDate: fields.startDate, events: fields.events, status: 'draft' }));
 }
 
+const FINISHED_READ_ONLY = 'This plan is finished and kept as it ran: it cannot be changed. Start a new plan for the next change.';
+
+/**
+ * A draft changes freely. A running plan keeps the start date it was started on (day 0 is the
+ * day the keeper began; the check days hang on it) but its name and events may change. A
+ * finished plan is read-only.
+ */
 export async function updatePlan(ds: DataSource, own: OwnPlan, fields: Partial<PlanFields>): Promise<Plan> {
+  const { status } = own.plan;
+  if (status === 'done') throw planStateRefused(FINISHED_READ_ONLY);
+  if (status === 'active' && fields.startDate !== undefined && fields.startDate !== own.plan.startDate)
+    throw planStateRefused('A running plan keeps the day it was started as day 0.', { startDate: 'A running plan keeps the day it was started as day 0.' });
   if (fields.events) await checkEventsFitTank(ds, own.tank, fields.events);
   const repo = ds.getRepository(Plan);
   const changes = Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)) as Partial<PlanFields>;
   await repo.update({ id: own.plan.id }, changes);
   return repo.findOneByOrFail({ id: own.plan.id });
+}
+
+const utcDay = (ms: number) => new Date(ms).toISOString().slice(0, 10);
+/** The one index that keeps one running plan per tank (migration 1796326000000). */
+const ONE_RUNNING_PER_TANK = 'plans_one_running_per_tank';
+
+function anotherRunning(name: string) {
+  return planStateRefused(`"${name}" is already running on this tank. Mark it as done first: one plan runs on a tank at a time.`);
+}
+
+/**
+ * Starts a draft: day 0 becomes `startDate` (the keeper's today, which is within a day of the
+ * server's UTC today in every time zone). Refused for a running or finished plan, a plan with
+ * no events (it would have no check days), and while another plan of the tank runs (the
+ * keeper finishes that one first; it is never ended behind their back). The partial unique
+ * index decides a race between two starts.
+ */
+export async function startPlan(db: Db, own: OwnPlan, input: { startDate?: string }, now: Date): Promise<Plan> {
+  const { plan } = own;
+  if (plan.status === 'active') throw planStateRefused(`This plan is already running (day 0 was ${plan.startDate}).`);
+  if (plan.status === 'done') throw planStateRefused(FINISHED_READ_ONLY);
+  if (plan.events.length === 0) throw planStateRefused('Add at least one event before starting: a plan with nothing in it has no check days.', { events: 'Add at least one event.' });
+  const startDate = input.startDate ?? utcDay(now.getTime());
+  const offset = Math.abs(Date.parse(`${startDate}T00:00:00Z`) - Date.parse(`${utcDay(now.getTime())}T00:00:00Z`)) / DAY_MS;
+  if (offset > 1) throw validationFailed({ startDate: 'A plan starts today: day 0 is the day you begin. Use today’s date.' });
+  const repo = db.getRepository(Plan);
+  const running = await repo.findOne({ where: { tankId: plan.tankId, status: 'active' }, select: { id: true, name: true } });
+  if (running) throw anotherRunning(running.name);
+  try {
+    // Only a draft moves: a concurrent start or finish of this plan changes no row here.
+    const moved = await repo.update({ id: plan.id, status: 'draft' }, { status: 'active', startDate, startedAt: now, finishedAt: null });
+    if (!moved.affected) throw planStateRefused('This plan changed meanwhile; reload it.');
+  } catch (err) {
+    if (!isUniqueViolation(err, ONE_RUNNING_PER_TANK)) throw err;
+    const other = await repo.findOne({ where: { tankId: plan.tankId, status: 'active' }, select: { id: true, name: true } });
+    throw anotherRunning(other?.name ?? 'Another plan');
+  }
+  return repo.findOneByOrFail({ id: plan.id });
+}
+
+/** Marks a running plan done; it is kept read-only with its readings. Refused for a draft or a finished plan. */
+export async function finishPlan(db: Db, own: OwnPlan, now: Date): Promise<Plan> {
+  const { plan } = own;
+  if (plan.status === 'draft') throw planStateRefused('This plan has not been started, so there is nothing to finish. Delete it if you no longer need it.');
+  if (plan.status === 'done') throw planStateRefused(`This plan is already done (since ${plan.finishedAt ? utcDay(plan.finishedAt.getTime()) : 'earlier'}).`);
+  const repo = db.getRepository(Plan);
+  const moved = await repo.update({ id: plan.id, status: 'active' }, { status: 'done', finishedAt: now });
+  if (!moved.affected) throw planStateRefused('This plan changed meanwhile; reload it.');
+  return repo.findOneByOrFail({ id: plan.id });
+}
+
+/** Most tests one plan's readings answer holds (a year of tests, one a day, fits). */
+export const PLAN_READING_LIMIT = 400;
+
+/** The earliest a calendar day starts anywhere (UTC+14), so day 0 in the keeper's own zone is never cut. */
+const EARLIEST_ZONE_MS = 14 * 3_600_000;
+
+/**
+ * The tank's tests taken while the plan ran, oldest first: from the first moment day 0 (its
+ * start date) is day 0 in any time zone (the app keeps those of its own calendar) to when it
+ * was marked done (or now). A draft has none. At most PLAN_READING_LIMIT, the first ones.
+ */
+export async function planReadings(ds: Db, own: OwnPlan): Promise<{ readings: Reading[]; total: number }> {
+  const { plan } = own;
+  if (plan.status === 'draft') return { readings: [], total: 0 };
+  const from = new Date(Date.parse(`${plan.startDate}T00:00:00Z`) - EARLIEST_ZONE_MS);
+  const where = { tankId: plan.tankId, takenAt: plan.finishedAt ? Between(from, plan.finishedAt) : MoreThanOrEqual(from) };
+  const [readings, total] = await ds.getRepository(Reading).findAndCount({ where, order: { takenAt: 'ASC' }, take: PLAN_READING_LIMIT });
+  return { readings, total };
 }
 
 export async function deletePlan(ds: DataSource, own: OwnPlan): Promise<void> {

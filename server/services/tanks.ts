@@ -8,6 +8,7 @@ import { Tank } from '../entities/tank.js';
 import type { TankFit } from '../entities/tank-fit.js';
 import { appliedFit } from './tank-fits.js';
 import { findSpecies } from '../../simulation/catalogue.js';
+import { stockCounts } from '../../shared/stock-counts.js';
 
 export interface TankSummaryRow {
   tank: Tank;
@@ -33,22 +34,16 @@ export async function listOwnTanks(ds: DataSource, ownerId: string): Promise<Tan
   if (tanks.length === 0) return [];
   const ids = tanks.map((t) => t.id);
 
-  // Per kind of animal, so catalogue shrimp and snails are told apart from fish (the catalogue
+  // Per kind of animal (shared/stock-counts.ts `stockKind`), so catalogue shrimp and snails are told apart from fish (the catalogue
   // lives in the engine, not the database).
   const groups: { tank_id: string; kind: string; animals: string }[] = await ds.query(
     `SELECT tank_id, coalesce(species_id, 'custom:' || lower(custom_name)) AS kind, sum(count) AS animals
        FROM livestock WHERE tank_id = ANY($1::uuid[]) GROUP BY tank_id, kind`,
     [ids],
   );
-  const counts = new Map<string, { fish: number; invertebrates: number; species: number }>();
-  for (const g of groups) {
-    const c = counts.get(g.tank_id) ?? { fish: 0, invertebrates: 0, species: 0 };
-    const animals = Number(g.animals);
-    if (findSpecies(g.kind)?.invertebrate) c.invertebrates += animals;
-    else c.fish += animals;
-    c.species += 1;
-    counts.set(g.tank_id, c);
-  }
+  const groupsBy = new Map<string, { kind: string; animals: number }[]>();
+  for (const g of groups) groupsBy.set(g.tank_id, [...(groupsBy.get(g.tank_id) ?? []), { kind: g.kind, animals: Number(g.animals) }]);
+  const counts = new Map([...groupsBy].map(([tankId, kinds]) => [tankId, stockCounts(kinds)]));
   const latest = await ds
     .getRepository(Reading)
     .createQueryBuilder('r')

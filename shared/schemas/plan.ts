@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { eventSchema, fishGroupSchema, startSchema } from '../../simulation/scenario';
-import { planStatusSchema } from './tank';
+import { planStatusSchema, readingSchema } from './tank';
 import { isoDate } from './iso-date';
 import { START_REASONS, startStateSchema } from './start-state';
 import { tankFitSchema } from './tank-history';
@@ -42,18 +42,37 @@ const planEvents = z
     if (count.entries > MAX_TIMELINE_ENTRIES) ctx.addIssue({ code: 'custom', message: overBudgetMessage(count, MAX_HORIZON_DAYS), path: count.largest.path.slice(1) });
   });
 
+/** How a plan's status changes: only through start and finish (services/plans.ts holds the rules). */
+export const STATUS_BY_ACTION_MESSAGE = 'A plan starts as a draft; it changes status only through "Start this plan" and "Mark as done".';
+
 export const planCreateSchema = z.object({
   name: planName,
   startDate: isoDate,
-  status: planStatusSchema.default('draft'),
+  status: z.literal('draft', { error: STATUS_BY_ACTION_MESSAGE }).default('draft'),
   events: planEvents.default([]),
 });
 export type PlanCreateInput = z.input<typeof planCreateSchema>;
 
 export const planPatchSchema = z
-  .object({ name: planName.optional(), startDate: isoDate.optional(), status: planStatusSchema.optional(), events: planEvents.optional() })
+  .object({
+    name: planName.optional(),
+    startDate: isoDate.optional(),
+    status: z.never({ error: STATUS_BY_ACTION_MESSAGE }).optional(),
+    events: planEvents.optional(),
+  })
   .refine((p) => Object.values(p).some((v) => v !== undefined), { message: 'Send at least one field to change.', path: ['_'] });
 export type PlanPatchInput = z.input<typeof planPatchSchema>;
+
+/**
+ * POST /api/plans/:planId/start: day 0 is the day the keeper starts, in their own calendar
+ * (sent by the app; the server's UTC today when left out). It must be within a day of the
+ * server's today, as every time zone's today is.
+ */
+export const planStartSchema = z.object({ startDate: isoDate.optional() });
+export type PlanStartInput = z.input<typeof planStartSchema>;
+
+/** POST /api/plans/:planId/finish takes no choices. */
+export const planFinishSchema = z.object({});
 
 /** One day the keeper should test, and why. */
 export const checkDaySchema = z.object({ day: z.number(), date: z.string(), reasons: z.array(z.string()).min(1) });
@@ -66,6 +85,9 @@ export const planDetailSchema = z.object({
   name: z.string(),
   startDate: z.string(),
   status: planStatusSchema,
+  /** When it was started and marked done (ISO instants); null before. */
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
   events: z.array(eventSchema),
   checkDays: z.array(checkDaySchema),
   createdAt: z.string(),
@@ -73,6 +95,10 @@ export const planDetailSchema = z.object({
 });
 export type PlanDetail = z.infer<typeof planDetailSchema>;
 export const planListSchema = z.object({ plans: z.array(planDetailSchema) });
+
+/** GET /api/plans/:planId/readings: the tank's tests while the plan ran, oldest first (`total` counts all of them). */
+export const planReadingsSchema = z.object({ readings: z.array(readingSchema), total: z.number().int() });
+export type PlanReadings = z.infer<typeof planReadingsSchema>;
 
 // ---- forecasts -------------------------------------------------------------------------
 

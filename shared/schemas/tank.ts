@@ -33,6 +33,7 @@ export const tankListSchema = z.object({ tanks: z.array(tankSummarySchema) });
 
 // ---- Tank detail (GET /api/tanks/:id) -------------------------------------------------------
 
+/** A plan's life: 'draft' → 'active' (running, shown as "In progress") → 'done' (kept read-only). */
 export const planStatusSchema = z.enum(['draft', 'active', 'done']);
 export type PlanStatus = z.infer<typeof planStatusSchema>;
 
@@ -113,6 +114,8 @@ export const planSchema = z.object({
   name: z.string(),
   startDate: z.string(),
   status: planStatusSchema,
+  startedAt: z.string().nullable(),
+  finishedAt: z.string().nullable(),
   events: z.array(planEventSchema),
 });
 export type PlanItem = z.infer<typeof planSchema>;

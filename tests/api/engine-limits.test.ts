@@ -132,10 +132,11 @@ describe('the reading-alert job runs its forecast on the pool', () => {
       const created = await k.post(`/api/tanks/${tankId}/plans`, {
         name: 'Dosing',
         startDate,
-        status: 'active',
         events: [{ type: 'ammonia-dose', day: 0, amount: { unit: 'mgN-per-L', value: 0.5 }, repeatEveryDays: 0.25 }],
       });
       expect(created.status).toBe(201);
+      // Running since 200 days ago (the API starts a plan today only).
+      await ds.query(`UPDATE plans SET status = 'active', started_at = $2::date WHERE id = $1`, [created.body.id, startDate]);
       // And what an older plan could hold before the minimums: a dose every 1e-9 days.
       await ds.getRepository(Plan).insert({
         tankId,
@@ -159,7 +160,7 @@ describe('the reading-alert job runs its forecast on the pool', () => {
       expect(loop.max / 1e6).toBeLessThan(500);
 
       // The old plan made active: the engine refuses it before building anything; the limit alert still goes.
-      await ds.query(`UPDATE plans SET status = CASE WHEN name = 'From before' THEN 'active' ELSE 'draft' END WHERE tank_id = $1`, [tankId]);
+      await ds.query(`UPDATE plans SET status = CASE WHEN name = 'From before' THEN 'active' ELSE 'draft' END, started_at = now() WHERE tank_id = $1`, [tankId]);
       const second = await k.post(`/api/tanks/${tankId}/readings`, { takenAt: new Date(Date.now() - 60_000).toISOString(), basis: 'N', no2: 0.5, ph: 7.2, temperatureC: 25 });
       expect(second.status).toBe(201);
       const deadline2 = Date.now() + 60_000;

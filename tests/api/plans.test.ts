@@ -114,14 +114,14 @@ describe('GET /api/plans, /api/tanks/:tankId/plans and /api/plans/:id', () => {
 });
 
 describe('PATCH /api/plans/:id', () => {
-  it('changes name, status and events; check days follow the new events', async () => {
+  it('changes name and events; check days follow the new events; the status stays', async () => {
     const ds = ctx.deps.dataSource;
     const { user, patch } = await keeper();
     await createLivestock(ds, (await createTank(ds, user.id)).id);
     const plan = await createPlan(ds, (await createTank(ds, user.id)).id);
-    const res = await patch(`/api/plans/${plan.id}`, { name: 'Renamed', status: 'active', events: [addNeons(10)] }).expect(200);
+    const res = await patch(`/api/plans/${plan.id}`, { name: 'Renamed', events: [addNeons(10)] }).expect(200);
     const body = planDetailSchema.parse(res.body);
-    expect(body).toMatchObject({ name: 'Renamed', status: 'active' });
+    expect(body).toMatchObject({ name: 'Renamed', status: 'draft', startedAt: null, finishedAt: null });
     expect(body.checkDays.map((d) => d.day)).toEqual([0, 11, 12, 13, 15, 17, 20, 24]);
     // Stored as the engine reads it: the single group sent becomes a list of one.
     expect((await ds.getRepository(Plan).findOneByOrFail({ id: plan.id })).events).toEqual([{ ...addNeons(10), fish: [addNeons(10).fish] }]);
@@ -136,6 +136,8 @@ describe('PATCH /api/plans/:id', () => {
       'events.0.temperatureC',
     ]);
     expect((await patch(`/api/plans/${plan.id}`, { status: 'finished' }).expect(400)).body.error.fields).toHaveProperty('status');
+    // Status moves only through start and finish (tests/api/plan-life.test.ts), never through a patch.
+    expect((await patch(`/api/plans/${plan.id}`, { status: 'active' }).expect(400)).body.error.fields.status).toMatch(/Start this plan/);
     expect((await ds.getRepository(Plan).findOneByOrFail({ id: plan.id })).name).toBe('Keep me');
   });
 

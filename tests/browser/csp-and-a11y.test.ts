@@ -1,9 +1,8 @@
-import { AxeBuilder } from '@axe-core/playwright';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../shared/api-error';
 import { DEMO_PEOPLE } from '../../server/demo-people';
-import { launchBrowser, newPage, type ViewportName } from './support';
+import { launchBrowser, newPage, seriousFindings, type ViewportName } from './support';
 
 const member = DEMO_PEOPLE.find((p) => p.key === 'member')!;
 
@@ -28,14 +27,6 @@ async function watchCsp(page: Page): Promise<string[]> {
     });
   });
   return violations;
-}
-
-/** Serious and critical axe findings (WCAG 2.x A/AA rules and best practices), as short lines. */
-async function seriousFindings(page: Page): Promise<string[]> {
-  const result = await new AxeBuilder({ page: page as never }).analyze();
-  return result.violations
-    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
-    .map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
 }
 
 const combos: [ViewportName, 'light' | 'dark'][] = [

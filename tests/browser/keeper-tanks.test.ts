@@ -72,6 +72,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('keeper tanks at %s size
     await page.getByTestId('quick-test-temperature').fill('25');
     await page.getByTestId('quick-test-save').click();
     await page.getByTestId('quick-test-saved').waitFor();
+    // The test log is folded below the tank's first screen until opened.
+    await page.getByTestId('tank-readings-toggle').click();
     await page.getByTestId('readings-table').waitFor();
     const table = await page.getByTestId('readings-table').innerText();
     expect(table).toContain('Over limit');
@@ -95,6 +97,7 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('keeper tanks at %s size
     await page.getByTestId('tank-name').waitFor();
     expect(await page.getByTestId('tank-facts').innerText()).toContain('31.7 US gal · 77 °F');
     expect(await page.getByTestId('tank-latest-figures-no3MgN').innerText()).toBe('44');
+    await page.getByTestId('tank-readings-toggle').click();
     expect(await page.getByTestId('readings-table').innerText()).toContain('77');
 
     // CSV import through the upload control: a bad row first (nothing imported), then a good file.

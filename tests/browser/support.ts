@@ -1,5 +1,6 @@
 import { existsSync, mkdirSync } from 'node:fs';
 import path from 'node:path';
+import { AxeBuilder } from '@axe-core/playwright';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 
 /** The two sizes every page is checked at. */
@@ -90,4 +91,12 @@ export async function signUp(page: Page, person: { displayName: string; email: s
   await page.goto(link.pathname + link.search);
   await page.getByTestId('confirm-sign-up-submit').click();
   await page.getByTestId('home-empty').waitFor();
+}
+
+/** Serious and critical axe findings (WCAG 2.x A/AA rules and best practices), as short lines. */
+export async function seriousFindings(page: Page): Promise<string[]> {
+  const result = await new AxeBuilder({ page: page as never }).analyze();
+  return result.violations
+    .filter((v) => v.impact === 'serious' || v.impact === 'critical')
+    .map((v) => `${v.impact} ${v.id}: ${v.help} — ${v.nodes.map((n) => n.target.join(' ')).slice(0, 3).join(', ')}`);
 }

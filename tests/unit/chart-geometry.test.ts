@@ -146,3 +146,16 @@ describe('finiteMax and indexAtX', () => {
     expect(indexAtX(100, g, [])).toBeNull();
   });
 });
+
+describe('measured points (the keeper’s tests on the forecast)', () => {
+  it('places each test at its day and value, leaves out tests outside the days, and raises the axis to a high test', () => {
+    const g = panelGeometry(base({ points: [{ key: 'tested', at: [{ day: 2, value: 0.6 }, { day: 9, value: 0.1 }, { day: 1, value: 2 }] }] }));
+    expect(g.points.map((p) => p.day)).toEqual([2, 1]);
+    // The plot spans x 40..290 over days 0..4: day 2 is the middle.
+    expect(g.points[0].x).toBeCloseTo(165, 9);
+    // A test of 2 lifts the axis above it (it would be clamped at the top otherwise).
+    expect(g.yDomain[1]).toBeGreaterThanOrEqual(2.2);
+    expect(g.points[1].y).toBeGreaterThan(g.plot.top);
+    expect(panelGeometry(base()).points).toEqual([]);
+  });
+});

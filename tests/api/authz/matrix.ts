@@ -138,6 +138,10 @@ export const MATRIX: Record<string, MatrixRow> = {
   },
   'GET /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
   'PATCH /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}`, body: { name: 'Renamed plan' } }), expect: ownerOnly() },
+  // The fixture's plan is a draft with one event: it starts, but there is nothing to finish yet (409).
+  'POST /api/plans/:planId/start': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/start`, body: {} }), expect: ownerOnly() },
+  'POST /api/plans/:planId/finish': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/finish`, body: {} }), expect: ownerOnly(409) },
+  'GET /api/plans/:planId/readings': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/readings` }), expect: ownerOnly() },
   'DELETE /api/plans/:planId': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}` }), expect: ownerOnly() },
   'POST /api/plans/:planId/forecast': { request: (fx) => ({ path: `/api/plans/${fx.plans.member}/forecast` }), expect: ownerOnly() },
   'POST /api/tanks/:tankId/advice/addition': {

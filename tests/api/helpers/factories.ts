@@ -97,6 +97,9 @@ export async function createPlan(ds: DataSource, tankId: string, overrides: Part
       startDate: '2026-01-10',
       status: 'draft',
       events: [{ type: 'add-fish', day: 0, fish: [{ species: 'neon-tetra', count: 6 }] }],
+      // The database asks a running or finished plan for its start (and end) time.
+      ...(overrides.status && overrides.status !== 'draft' ? { startedAt: new Date('2026-01-10T08:00:00Z') } : {}),
+      ...(overrides.status === 'done' ? { finishedAt: new Date('2026-02-10T08:00:00Z') } : {}),
       ...overrides,
     }),
   );
