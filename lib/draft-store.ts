@@ -42,12 +42,27 @@ export function sortEvents(events: readonly ScenarioEvent[]): ScenarioEvent[] {
   return [...events].sort(byDay);
 }
 
+type AddFish = Extract<ScenarioEvent, { type: 'add-fish' }>;
+
+/** An add-fish event of the same fish (species and name) as `fish`. */
+export function addsSameFish(e: ScenarioEvent, fish: AddFish['fish']): e is AddFish {
+  return e.type === 'add-fish' && e.fish.species === fish.species && e.fish.name === fish.name;
+}
+
 /**
- * The plan's events with every add-fish event replaced by a schedule's (advice "apply this
- * schedule"); other events stay.
+ * The plan's events with its additions of the schedule's fish replaced by the schedule's
+ * batches on their days (advice "apply this schedule"); every other event stays. Null when a
+ * batch would go in before the first planned addition of those fish: applying advice never
+ * moves an event earlier than the keeper planned it.
  */
-export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] {
-  return sortEvents([...events.filter((e) => e.type !== 'add-fish'), ...schedule.filter((e) => e.type === 'add-fish')]);
+export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] | null {
+  const batches = schedule.filter((e): e is AddFish => e.type === 'add-fish');
+  if (batches.length === 0) return null;
+  const fish = batches[0].fish;
+  const planned = events.filter((e) => addsSameFish(e, fish));
+  const earliest = planned.length > 0 ? Math.min(...planned.map((e) => e.day)) : 0;
+  if (batches.some((b) => !addsSameFish(b, fish) || b.day < earliest)) return null;
+  return sortEvents([...events.filter((e) => !addsSameFish(e, fish)), ...batches]);
 }
 
 export const useDraftStore = create<DraftState>((set) => {

@@ -37,11 +37,15 @@ const DAY_MS = 86_400_000;
 /** Most readings one calibration uses (calibrationRequestSchema allows 2000; these are the newest). */
 export const CALIBRATION_MAX_READINGS = 500;
 
-async function planEvents(ds: DataSource, tank: Tank, planId: string | undefined): Promise<ScenarioEvent[]> {
-  if (!planId) return [];
+async function planOf(ds: DataSource, tank: Tank, planId: string | undefined): Promise<Plan | null> {
+  if (!planId) return null;
   const plan = await ds.getRepository(Plan).findOneBy({ id: planId, tankId: tank.id });
   if (!plan) throw notFound('No such plan on this tank.');
-  return plan.events;
+  return plan;
+}
+
+async function planEvents(ds: DataSource, tank: Tank, planId: string | undefined): Promise<ScenarioEvent[]> {
+  return (await planOf(ds, tank, planId))?.events ?? [];
 }
 
 async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], options: { start?: Start; horizonDays?: number } = {}): Promise<Scenario> {
@@ -53,12 +57,29 @@ async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], o
   }
 }
 
-/** Fastest safe schedule for the fish; the plan's own add-fish events are left out (the schedule replaces them). */
+/** The plan's add-fish events of the same fish (species and name) as the advice is asked about. */
+function sameFish(e: ScenarioEvent, fish: { species?: string; name?: string }): boolean {
+  return e.type === 'add-fish' && e.fish.species === fish.species && e.fish.name === fish.name;
+}
+
+/**
+ * Fastest safe schedule for the fish. On a plan, the schedule replaces the plan's own additions
+ * of these fish (its other events stay in the forecast), never starts before the first of them
+ * (the keeper's planned day; a later `firstDay` asked for is kept), and is dated from the
+ * plan's start date.
+ */
 export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
-  const events = (await planEvents(ds, tank, planId)).filter((e) => e.type !== 'add-fish');
+  const plan = await planOf(ds, tank, planId);
+  const planned = (plan?.events ?? []).filter((e) => sameFish(e, request.fish));
+  const events = (plan?.events ?? []).filter((e) => !sameFish(e, request.fish));
+  const plannedDay = planned.length > 0 ? Math.min(...planned.map((e) => e.day)) : 0;
+  const firstDay = Math.max(plannedDay, request.constraints?.firstDay ?? 0);
   const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365 });
-  const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } }, caller);
+  const { value } = await runEngine(
+    { kind: 'addition', request: { ...request, constraints: { ...request.constraints, firstDay }, ...(plan ? { startDate: plan.startDate } : {}), scenario } },
+    caller,
+  );
   return additionResponseSchema.parse(value);
 }
 

@@ -1,0 +1,213 @@
+/**
+ * When no schedule of the fish is safe within the keeper's limits: what stands in the way
+ * (which limit, from which day, and whether the tank could ever carry them), and what would
+ * make it possible — each suggestion found by the same search and checked on the whole
+ * ensemble like the answer itself, so a suggestion is a schedule that works, never a guess.
+ *
+ * Tried in order, each changing one thing: more (smaller) batches, a later finish, a
+ * stricter routine water change (dilution holds ammonia and nitrite down while the
+ * nitrifiers grow), and the largest number of these fish that can go in within the limits.
+ */
+import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
+import { ScenarioError } from '../scenario-error';
+import { steadyStateCapacity } from '../capacity';
+import { batchEvents, SETTLE_DAYS, splitCount, searchSchedule, type Batch, type ScheduleQuery, type ScheduleSearch } from './addition-search';
+import { limitByKey } from './explain';
+import { withEvents } from './scenario-edit';
+import { dayWords, fishName, scheduleWords } from './schedule-words';
+import type { LimitKey } from './tank-limits';
+
+/** Most batches and longest search a request may ask for (additionRequestSchema). */
+export const MAX_BATCHES = 20;
+export const MAX_SEARCH_DAYS = 365;
+
+/**
+ * Routine water changes tried, gentlest first: every few days up to half the water every
+ * other day (common practice: changes above about half the water at once stress fish).
+ */
+export const ROUTINE_LADDER: readonly { percent: number; everyDays: number }[] = [
+  { percent: 25, everyDays: 3 },
+  { percent: 30, everyDays: 2 },
+  { percent: 50, everyDays: 2 },
+];
+
+/** Share of a limit the plan reaches without the new fish above which the blocker says so. */
+const HEADROOM_NOTE_SHARE = 0.8;
+
+export type SuggestionKind = 'more-batches' | 'later-finish' | 'water-changes' | 'fewer-fish';
+
+export interface AdditionSuggestion {
+  kind: SuggestionKind;
+  /** One line: what to change and the schedule it gives. */
+  summary: string;
+  /** Fish in the schedule (fewer than asked for a "fewer-fish" suggestion). */
+  count: number;
+  batches: Batch[];
+  finishDay: number;
+  events: ScenarioEvent[];
+  /** The search limits that give it (the keeper's fields). */
+  maxBatches: number;
+  searchDays: number;
+  /** The routine water change it needs (the tank's setting), or null for the tank's own. */
+  routineWaterChange: { percent: number; everyDays: number } | null;
+}
+
+export interface AdditionBlocker {
+  /**
+   * "capacity": even fully grown, the tank's nitrifiers cannot carry the fish (the engine's
+   * steady state has none); "first-batch": the smallest batch allowed already crosses a
+   * limit; "pace": batches fit one at a time but the nitrifiers cannot grow into them all
+   * within the search.
+   */
+  kind: 'capacity' | 'first-batch' | 'pace';
+  limit: LimitKey;
+  /** First day the limit is crossed on the band's upper edge (by the plan that shows it), or null. */
+  day: number | null;
+  /** The smallest batch the search tried. */
+  smallestBatch: number;
+  words: string;
+}
+
+function suggestionFrom(kind: SuggestionKind, found: ScheduleSearch, fish: FishGroup, summary: string, routine: AdditionSuggestion['routineWaterChange']): AdditionSuggestion {
+  const r = found.result!;
+  return {
+    kind,
+    summary,
+    count: r.batches.reduce((n, b) => n + b.count, 0),
+    batches: r.batches,
+    finishDay: r.finishDay,
+    events: batchEvents(fish, r.batches),
+    maxBatches: found.maxBatches,
+    searchDays: found.searchDays,
+    routineWaterChange: routine,
+  };
+}
+
+/** A search that refuses its input (a load no draw can carry) counts as no schedule. */
+function tryTo(query: ScheduleQuery): ScheduleSearch | null {
+  try {
+    const found = searchSchedule(query);
+    return found.result ? found : null;
+  } catch (e) {
+    if (e instanceof RangeError || e instanceof ScenarioError) return null;
+    throw e;
+  }
+}
+
+function routineRate(r: Scenario['tank']['routineWaterChange']): number {
+  return r ? r.percent / r.everyDays : 0;
+}
+
+/** What would make the addition possible: every suggestion is a schedule the search found safe. */
+export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch, startDate?: string): AdditionSuggestion[] {
+  const { fish, scenario } = query;
+  const c = query.constraints ?? {};
+  const minBatch = c.minBatch ?? 1;
+  const out: AdditionSuggestion[] = [];
+  const name = fishName(fish);
+
+  const possibleBatches = Math.min(MAX_BATCHES, Math.floor(fish.count / minBatch));
+  if (found.maxBatches < possibleBatches) {
+    const more = tryTo({ ...query, constraints: { ...c, maxBatches: possibleBatches } });
+    if (more) out.push(suggestionFrom('more-batches', more, fish, `In up to ${possibleBatches} smaller batches it works: ${scheduleWords(more.result!.batches, startDate)}.`, null));
+  }
+
+  if (found.searchDays < MAX_SEARCH_DAYS) {
+    const searchDays = Math.min(MAX_SEARCH_DAYS, 2 * found.searchDays);
+    const later = tryTo({ ...query, searchDays, constraints: { ...c, latestFinishDay: undefined } });
+    if (later) out.push(suggestionFrom('later-finish', later, fish, `Allowing ${searchDays} days instead of ${found.searchDays}, it works: ${scheduleWords(later.result!.batches, startDate)}.`, null));
+  }
+
+  const current = routineRate(scenario.tank.routineWaterChange);
+  for (const routine of ROUTINE_LADDER.filter((r) => routineRate(r) > current)) {
+    const withRoutine: Scenario = { ...scenario, tank: { ...scenario.tank, routineWaterChange: routine } };
+    const changed = tryTo({ ...query, scenario: withRoutine });
+    if (!changed) continue;
+    out.push(
+      suggestionFrom(
+        'water-changes',
+        changed,
+        fish,
+        `With a ${routine.percent} % water change every ${routine.everyDays} days (set as the tank's routine) it works: ${scheduleWords(changed.result!.batches, startDate)}.`,
+        routine,
+      ),
+    );
+    break;
+  }
+
+  // The largest number of these fish with a safe schedule within the same limits (bisection:
+  // fewer fish never make a plan less safe).
+  let lo = 1;
+  let hi = fish.count - 1;
+  let best: ScheduleSearch | null = null;
+  while (lo <= hi) {
+    const mid = (lo + hi) >> 1;
+    const fewer = tryTo({ ...query, fish: { ...fish, count: mid }, constraints: { ...c, minBatch: Math.min(minBatch, mid) } });
+    if (fewer) {
+      best = fewer;
+      lo = mid + 1;
+    } else hi = mid - 1;
+  }
+  if (best) {
+    const n = best.result!.batches.reduce((s, b) => s + b.count, 0);
+    out.push(
+      suggestionFrom('fewer-fish', best, { ...fish, count: n }, `Up to ${n} ${name} can go in safely within ${found.searchDays} days: ${scheduleWords(best.result!.batches, startDate)}.`, null),
+    );
+  }
+  return out;
+}
+
+/** Which limit stands in the way, from when, and why (see AdditionBlocker). */
+export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, startDate?: string): AdditionBlocker {
+  const { fish, scenario } = query;
+  const { judge, days } = found;
+  const name = fishName(fish);
+  const first = days[0];
+  const smallestBatch = splitCount(fish.count, found.maxBatches)[0];
+  const alone = judge.judge(withEvents(scenario, batchEvents(fish, [{ day: first, count: smallestBatch }])), first + SETTLE_DAYS);
+  const crossing = alone.safe ? found.allAtOnce.upperEdge : alone;
+  const limit = limitByKey(found.ctx.limits, crossing.binding);
+  const day = crossing.limits.find((l) => l.key === crossing.binding)?.firstDayOver ?? null;
+  const when = day === null ? '' : ` from ${dayWords(Math.floor(day), startDate)}`;
+
+  // How close the plan already comes without these fish (the bounding draws, to the same horizon).
+  const without = judge.judge(scenario, first + SETTLE_DAYS);
+  const headroom =
+    without.peakRatio >= HEADROOM_NOTE_SHARE
+      ? ` Without them the forecast already reaches ${Math.round(without.peakRatio * 100)} % of the ${limitByKey(found.ctx.limits, without.binding).label} limit, so there is little room.`
+      : '';
+
+  // With the central values, can the tank carry the fish at all once its nitrifiers have grown?
+  let carry: string | null = null;
+  try {
+    steadyStateCapacity({ ...scenario, fish: [...scenario.fish, fish] });
+  } catch (e) {
+    if (!(e instanceof ScenarioError)) throw e;
+    carry = Object.values(e.fields)[0] ?? e.message;
+  }
+  if (carry !== null) {
+    return {
+      kind: 'capacity',
+      limit: crossing.binding,
+      day,
+      smallestBatch,
+      words: `Even once its nitrifiers have grown, this tank cannot carry ${fish.count} more ${name}: ${carry} However slowly they go in, ${limit.label} would climb over its limit${when}.`,
+    };
+  }
+  if (!alone.safe) {
+    return {
+      kind: 'first-batch',
+      limit: crossing.binding,
+      day,
+      smallestBatch,
+      words: `Even ${smallestBatch} ${name} at once — ${found.maxBatches === 1 ? 'everything in one batch, as you allowed' : `the smallest batch in at most ${found.maxBatches} batches`} — push ${limit.label} over its limit${when}.${headroom}`,
+    };
+  }
+  return {
+    kind: 'pace',
+    limit: crossing.binding,
+    day,
+    smallestBatch,
+    words: `Batches of ${smallestBatch} ${name} fit one at a time, but the nitrifiers cannot grow into all ${fish.count} by ${dayWords(days[days.length - 1], startDate)}: ${limit.label} is the limit in the way (all at once it crosses${when}).${headroom}`,
+  };
+}
