@@ -285,8 +285,19 @@ export interface ScheduleSearch {
   horizon: number;
 }
 
+/**
+ * The judge of an earlier search on the same tank and plan, reused so a follow-up search (a
+ * different count, cap or horizon) does not re-run the ensemble: its bounding set only grows,
+ * and every answer is still checked on the whole ensemble. All at once is then not re-judged.
+ */
+export interface ReusedJudge {
+  ctx: AdviceContext;
+  judge: UpperEdgeJudge;
+  allAtOnce: PlanOutcome;
+}
+
 /** The fastest schedule whose forecast stays under the limits on the band's upper edge (or null), checked on the whole ensemble. */
-export function searchSchedule(query: ScheduleQuery): ScheduleSearch {
+export function searchSchedule(query: ScheduleQuery, reuse?: ReusedJudge): ScheduleSearch {
   const { scenario, fish } = query;
   const c = { firstDay: 0, ...query.constraints };
   const minBatch = c.minBatch ?? 1;
@@ -299,12 +310,14 @@ export function searchSchedule(query: ScheduleQuery): ScheduleSearch {
   // The reference (all at once) is ranked over two settling periods; plans finishing later are
   // compared over a longer horizon at the end.
   const referenceHorizon = days[0] + 2 * SETTLE_DAYS;
-  const ctx = adviceContext(scenario, referenceHorizon, query.settings);
+  const ctx = reuse?.ctx ?? adviceContext(scenario, referenceHorizon, query.settings);
   const allAtOnceScenario = withEvents(scenario, batchEvents(fish, [{ day: days[0], count: fish.count }]));
-  const judge = createJudge(truncateEvents(allAtOnceScenario, referenceHorizon), ctx.limits, ctx.options, {
-    ensemble: ctx.ensemble,
-    boundingSize: ctx.boundingSize,
-  });
+  const judge =
+    reuse?.judge ??
+    createJudge(truncateEvents(allAtOnceScenario, referenceHorizon), ctx.limits, ctx.options, {
+      ensemble: ctx.ensemble,
+      boundingSize: ctx.boundingSize,
+    });
   const maxB = Math.max(1, Math.min(c.maxBatches ?? 8, Math.floor(fish.count / minBatch)));
 
   let result: SearchResult | null = null;
@@ -321,17 +334,21 @@ export function searchSchedule(query: ScheduleQuery): ScheduleSearch {
       staged = planOutcome(check.forecasts, ctx.limits, forecastParsed(truncateEvents(plan, horizon), { ...ctx.options, horizonDays: horizon }));
       break;
     }
-    const grow = check.breaking.length ? check.breaking : full.safe ? [] : [judge.ensemble.members[full.worstMember]];
+    // worstMember is the member's own index (conditioned ensembles number their redraws apart), not its place in the list.
+    const worst = full.safe ? undefined : judge.ensemble.members.find((m) => m.index === full.worstMember);
+    const grow = (check.breaking.length ? check.breaking : worst ? [worst] : []).filter((m) => !judge.bounding.some((b) => b.index === m.index));
+    // Nothing new to judge on: searching again would find the same schedule.
     if (grow.length === 0) {
       result = null;
       break;
     }
-    judge.bounding.push(...grow.filter((m) => !judge.bounding.some((b) => b.index === m.index)));
+    judge.bounding.push(...grow);
     result = null;
   }
 
   // All at once is reported on the reference ensemble itself (its peak passes well within two
   // settling periods): no second run of every member.
+  if (reuse) return { ctx, judge, days, maxBatches: maxB, searchDays, result, staged, allAtOnce: reuse.allAtOnce, allAtOnceScenario, horizon };
   const allAtOnce = planOutcome(
     judge.ensemble.forecasts,
     ctx.limits,

@@ -11,7 +11,7 @@
 import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
 import { ScenarioError } from '../scenario-error';
 import { steadyStateCapacity } from '../capacity';
-import { batchEvents, SETTLE_DAYS, splitCount, searchSchedule, type Batch, type ScheduleQuery, type ScheduleSearch } from './addition-search';
+import { batchEvents, SETTLE_DAYS, splitCount, searchSchedule, type Batch, type ReusedJudge, type ScheduleQuery, type ScheduleSearch } from './addition-search';
 import { limitByKey } from './explain';
 import { withEvents } from './scenario-edit';
 import { dayWords, fishName, scheduleWords } from './schedule-words';
@@ -30,6 +30,11 @@ export const ROUTINE_LADDER: readonly { percent: number; everyDays: number }[] =
   { percent: 30, everyDays: 2 },
   { percent: 50, everyDays: 2 },
 ];
+
+/** Most searches spent on the largest safe total (the work stays bounded for any count asked). */
+export const FEWER_FISH_SEARCHES = 7;
+/** …then at most this many with each count's own ensemble, to tighten it. */
+export const FEWER_FISH_OWN_SEARCHES = 3;
 
 /** Share of a limit the plan reaches without the new fish above which the blocker says so. */
 const HEADROOM_NOTE_SHARE = 0.8;
@@ -83,15 +88,28 @@ function suggestionFrom(kind: SuggestionKind, found: ScheduleSearch, fish: FishG
   };
 }
 
-/** A search that refuses its input (a load no draw can carry) counts as no schedule. */
-function tryTo(query: ScheduleQuery): ScheduleSearch | null {
+/**
+ * Forecasts the suggestions may run, in all: about ten searches on a 64-member ensemble (a
+ * second or two), so the answer stays bounded whatever the request. The searches on the same
+ * tank reuse the answer's ensemble; a different routine needs its own.
+ */
+export const SUGGESTION_FORECASTS = 1500;
+
+interface Budget {
+  left: number;
+}
+
+/** A search that refuses its input (a load no draw can carry) counts as no schedule; its forecasts count against the budget. */
+function tryTo(budget: Budget, query: ScheduleQuery, reuse?: ReusedJudge): ScheduleSearch | null {
+  const before = reuse?.judge.forecastsRun ?? 0;
+  let found: ScheduleSearch | null = null;
   try {
-    const found = searchSchedule(query);
-    return found.result ? found : null;
+    found = searchSchedule(query, reuse);
   } catch (e) {
-    if (e instanceof RangeError || e instanceof ScenarioError) return null;
-    throw e;
+    if (!(e instanceof RangeError || e instanceof ScenarioError)) throw e;
   }
+  budget.left -= found ? found.judge.forecastsRun - before : (reuse?.judge.forecastsRun ?? 0) - before;
+  return found?.result ? found : null;
 }
 
 function routineRate(r: Scenario['tank']['routineWaterChange']): number {
@@ -105,23 +123,29 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
   const minBatch = c.minBatch ?? 1;
   const out: AdditionSuggestion[] = [];
   const name = fishName(fish);
+  const budget: Budget = { left: SUGGESTION_FORECASTS };
+  const reuse: ReusedJudge = { ctx: found.ctx, judge: found.judge, allAtOnce: found.allAtOnce };
 
   const possibleBatches = Math.min(MAX_BATCHES, Math.floor(fish.count / minBatch));
   if (found.maxBatches < possibleBatches) {
-    const more = tryTo({ ...query, constraints: { ...c, maxBatches: possibleBatches } });
+    const more = tryTo(budget, { ...query, constraints: { ...c, maxBatches: possibleBatches } }, reuse);
     if (more) out.push(suggestionFrom('more-batches', more, fish, `In up to ${possibleBatches} smaller batches it works: ${scheduleWords(more.result!.batches, startDate)}.`, null));
   }
 
-  if (found.searchDays < MAX_SEARCH_DAYS) {
+  if (found.searchDays < MAX_SEARCH_DAYS && budget.left > 0) {
     const searchDays = Math.min(MAX_SEARCH_DAYS, 2 * found.searchDays);
-    const later = tryTo({ ...query, searchDays, constraints: { ...c, latestFinishDay: undefined } });
+    const later = tryTo(budget, { ...query, searchDays, constraints: { ...c, latestFinishDay: undefined } }, reuse);
     if (later) out.push(suggestionFrom('later-finish', later, fish, `Allowing ${searchDays} days instead of ${found.searchDays}, it works: ${scheduleWords(later.result!.batches, startDate)}.`, null));
   }
 
+  // A routine changes the tank, so each try runs its own ensemble: tried while the budget
+  // still covers one more of what the answer's own ensemble cost.
+  const ensembleCost = found.judge.ensemble.forecasts.length + found.judge.ensemble.dropped;
   const current = routineRate(scenario.tank.routineWaterChange);
   for (const routine of ROUTINE_LADDER.filter((r) => routineRate(r) > current)) {
+    if (budget.left < 2 * ensembleCost) break;
     const withRoutine: Scenario = { ...scenario, tank: { ...scenario.tank, routineWaterChange: routine } };
-    const changed = tryTo({ ...query, scenario: withRoutine });
+    const changed = tryTo(budget, { ...query, scenario: withRoutine });
     if (!changed) continue;
     out.push(
       suggestionFrom(
@@ -136,13 +160,27 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
   }
 
   // The largest number of these fish with a safe schedule within the same limits (bisection:
-  // fewer fish never make a plan less safe).
+  // fewer fish never make a plan less safe), in at most FEWER_FISH_SEARCHES searches and
+  // within the budget: past that the largest safe count found so far is the answer (a safe
+  // one, perhaps not the largest).
+  // First on the answer's own bounding draws (cheap, and on the safe side: they were ranked for
+  // the full count and only grow), then up from there with each count's own ensemble ranking.
+  const fewerQuery = (count: number): ScheduleQuery => ({ ...query, fish: { ...fish, count }, constraints: { ...c, minBatch: Math.min(minBatch, count) } });
   let lo = 1;
   let hi = fish.count - 1;
   let best: ScheduleSearch | null = null;
-  while (lo <= hi) {
+  for (let step = 0; lo <= hi && step < FEWER_FISH_SEARCHES && budget.left > 0; step++) {
     const mid = (lo + hi) >> 1;
-    const fewer = tryTo({ ...query, fish: { ...fish, count: mid }, constraints: { ...c, minBatch: Math.min(minBatch, mid) } });
+    const fewer = tryTo(budget, fewerQuery(mid), reuse);
+    if (fewer) {
+      best = fewer;
+      lo = mid + 1;
+    } else hi = mid - 1;
+  }
+  hi = fish.count - 1;
+  for (let step = 0; best && lo <= hi && step < FEWER_FISH_OWN_SEARCHES && budget.left >= ensembleCost; step++) {
+    const mid = (lo + hi) >> 1;
+    const fewer = tryTo(budget, fewerQuery(mid));
     if (fewer) {
       best = fewer;
       lo = mid + 1;
