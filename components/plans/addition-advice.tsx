@@ -56,7 +56,10 @@ export function AdditionAdvice({ tank, planId, events, startDate, onApplySchedul
             label="Finish within (days)"
             hint={Number.isInteger(lastDay) && lastDay > 0 ? `Last batch by ${dated(lastDay).toLowerCase()}` : 'Days from the plan start'}
             value={limits.searchDays}
-            onChangeText={(v) => setLimits((l) => ({ ...l, searchDays: v }))}
+            onChangeText={(v) => {
+              setLimits((l) => ({ ...l, searchDays: v }));
+              setErrors((e) => ({ ...e, searchDays: undefined }));
+            }}
             keyboardType="number-pad"
             error={errors.searchDays}
             testID="addition-search-days"
@@ -67,7 +70,10 @@ export function AdditionAdvice({ tank, planId, events, startDate, onApplySchedul
             label="At most how many batches"
             hint="More batches: smaller trips to the shop"
             value={limits.maxBatches}
-            onChangeText={(v) => setLimits((l) => ({ ...l, maxBatches: v }))}
+            onChangeText={(v) => {
+              setLimits((l) => ({ ...l, maxBatches: v }));
+              setErrors((e) => ({ ...e, maxBatches: undefined }));
+            }}
             keyboardType="number-pad"
             error={errors.maxBatches}
             testID="addition-max-batches"

@@ -121,7 +121,7 @@ function explainAddition(
     out.push(
       suggestions.length > 0
         ? 'Each suggestion below was searched and checked the same way as a schedule, on the same plausible forecasts.'
-        : 'Nothing tried here (smaller batches, a later finish, more frequent water changes, fewer fish) keeps the forecast under the limits: let the biofilter grow first, for example by dosing ammonia before any fish go in.',
+        : 'Nothing tried here (smaller batches, a later finish, more frequent water changes, fewer fish) keeps the forecast under the limits. If your own tests read well under the limits, fit the model to them ("Fit to my tests") and ask again: the forecast is only as good as what it knows of this tank. Otherwise add no fish for now.',
     );
     out.push(`The limit in the way is the ${describeLimit(binding)}. ${whyLimitMatters(binding.key)}`);
   }

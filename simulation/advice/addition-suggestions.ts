@@ -13,6 +13,8 @@ import { ScenarioError } from '../scenario-error';
 import { steadyStateCapacity } from '../capacity';
 import { batchEvents, SETTLE_DAYS, splitCount, searchSchedule, type Batch, type ReusedJudge, type ScheduleQuery, type ScheduleSearch } from './addition-search';
 import { limitByKey } from './explain';
+import { ensembleForecasts } from './judge';
+import { planOutcome } from './plan-outcome';
 import { withEvents } from './scenario-edit';
 import { dayWords, fishName, scheduleWords } from './schedule-words';
 import type { LimitKey } from './tank-limits';
@@ -208,11 +210,16 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
   const day = crossing.limits.find((l) => l.key === crossing.binding)?.firstDayOver ?? null;
   const when = day === null ? '' : ` from ${dayWords(Math.floor(day), startDate)}`;
 
-  // How close the plan already comes without these fish (the bounding draws, to the same horizon).
-  const without = judge.judge(scenario, first + SETTLE_DAYS);
-  const headroom =
-    without.peakRatio >= HEADROOM_NOTE_SHARE
-      ? ` Without them the forecast already reaches ${Math.round(without.peakRatio * 100)} % of the ${limitByKey(found.ctx.limits, without.binding).label} limit, so there is little room.`
+  // How close the plan already comes without these fish: 9 in 10 of the whole ensemble's
+  // forecasts, the same judgement as every answer, to the same horizon.
+  const withoutForecasts = ensembleForecasts(judge, scenario, first + SETTLE_DAYS);
+  const without = planOutcome(withoutForecasts, found.ctx.limits, withoutForecasts[0]).upperEdge;
+  const nearest = limitByKey(found.ctx.limits, without.binding).label;
+  const share = `${Math.round(without.peakRatio * 100)} %`;
+  const headroom = !without.safe
+    ? ` Even without them more than 1 in 10 forecasts cross a limit (${nearest}: 9 in 10 peak below ${share} of it), so there is no room.`
+    : without.peakRatio >= HEADROOM_NOTE_SHARE
+      ? ` Without them 9 in 10 forecasts already peak below ${share} of the ${nearest} limit, so there is little room.`
       : '';
 
   // With the central values, can the tank carry the fish at all once its nitrifiers have grown?

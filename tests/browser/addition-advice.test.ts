@@ -20,9 +20,8 @@ afterAll(async () => {
 async function planOnCommunityTank(page: Page, name: string, events: unknown[]): Promise<string> {
   return page.evaluate(
     async ({ name, events, header, value }) => {
-      const tanks = (await (await fetch('/api/tanks')).json()) as { items?: { id: string; name: string }[] } | { id: string; name: string }[];
-      const list = Array.isArray(tanks) ? tanks : (tanks.items ?? []);
-      const tank = list.find((t) => t.name === 'Living-room community');
+      const { tanks } = (await (await fetch('/api/tanks')).json()) as { tanks: { id: string; name: string }[] };
+      const tank = tanks.find((t) => t.name === 'Living-room community');
       if (!tank) throw new Error('no community tank');
       const res = await fetch(`/api/tanks/${tank.id}/plans`, {
         method: 'POST',
