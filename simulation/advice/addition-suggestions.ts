@@ -180,8 +180,9 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
     } else hi = mid - 1;
   }
   hi = fish.count - 1;
-  for (let step = 0; best && lo <= hi && step < FEWER_FISH_OWN_SEARCHES && budget.left >= ensembleCost; step++) {
-    const mid = (lo + hi) >> 1;
+  for (let step = 0; lo <= hi && step < FEWER_FISH_OWN_SEARCHES && budget.left >= ensembleCost; step++) {
+    // With nothing safe yet, the smallest count first: "up to 1" says more than nothing.
+    const mid = best ? (lo + hi) >> 1 : lo;
     const fewer = tryTo(budget, fewerQuery(mid));
     if (fewer) {
       best = fewer;
@@ -204,7 +205,9 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
   const name = fishName(fish);
   const first = days[0];
   const smallestBatch = splitCount(fish.count, found.maxBatches)[0];
-  const alone = judge.judge(withEvents(scenario, batchEvents(fish, [{ day: first, count: smallestBatch }])), first + SETTLE_DAYS);
+  // The smallest batch alone, on the whole ensemble (the same judgement as every answer).
+  const aloneForecasts = ensembleForecasts(judge, withEvents(scenario, batchEvents(fish, [{ day: first, count: smallestBatch }])), first + SETTLE_DAYS);
+  const alone = planOutcome(aloneForecasts, found.ctx.limits, aloneForecasts[0]).upperEdge;
   const crossing = alone.safe ? found.allAtOnce.upperEdge : alone;
   const limit = limitByKey(found.ctx.limits, crossing.binding);
   const day = crossing.limits.find((l) => l.key === crossing.binding)?.firstDayOver ?? null;
