@@ -13,11 +13,12 @@ import { ScenarioError } from '../scenario-error';
 import { steadyStateCapacity } from '../capacity';
 import { batchEvents, SETTLE_DAYS, splitCount, searchSchedule, type Batch, type ReusedJudge, type ScheduleQuery, type ScheduleSearch } from './addition-search';
 import { limitByKey } from './explain';
-import { ensembleForecasts } from './judge';
+import type { Forecast } from '../forecast';
+import { EDGE_QUANTILE, ensembleForecasts, judgeForecast } from './judge';
 import { planOutcome } from './plan-outcome';
 import { withEvents } from './scenario-edit';
 import { dayWords, fishName, scheduleWords } from './schedule-words';
-import type { LimitKey } from './tank-limits';
+import type { AppliedLimit, LimitKey } from './tank-limits';
 
 /** Most batches and longest search a request may ask for (additionRequestSchema). */
 export const MAX_BATCHES = 20;
@@ -198,6 +199,18 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
   return out;
 }
 
+/**
+ * The day from which more than 1 in 10 of the forecasts are over a limit (the answer's own
+ * criterion: a member counts from its first crossing of any limit); null when that never happens.
+ */
+function overOneInTen(forecasts: readonly Forecast[], limits: readonly AppliedLimit[]): number | null {
+  const firsts = forecasts
+    .map((f) => judgeForecast(f, limits).limits.reduce<number | null>((m, l) => (l.firstDayOver === null ? m : m === null ? l.firstDayOver : Math.min(m, l.firstDayOver)), null))
+    .filter((d): d is number => d !== null)
+    .sort((a, b) => a - b);
+  return firsts[Math.floor((1 - EDGE_QUANTILE) * forecasts.length)] ?? null; // 0-based: the crossing that makes it more than 1 in 10
+}
+
 /** Which limit stands in the way, from when, and why (see AdditionBlocker). */
 export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, startDate?: string): AdditionBlocker {
   const { fish, scenario } = query;
@@ -210,7 +223,7 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
   const alone = planOutcome(aloneForecasts, found.ctx.limits, aloneForecasts[0]).upperEdge;
   const crossing = alone.safe ? found.allAtOnce.upperEdge : alone;
   const limit = limitByKey(found.ctx.limits, crossing.binding);
-  const day = crossing.limits.find((l) => l.key === crossing.binding)?.firstDayOver ?? null;
+  const day = overOneInTen(alone.safe ? judge.ensemble.forecasts : aloneForecasts, found.ctx.limits);
   const when = day === null ? '' : ` from ${dayWords(Math.floor(day), startDate)}`;
 
   // How close the plan already comes without these fish: 9 in 10 of the whole ensemble's
@@ -236,7 +249,7 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
   if (carry !== null) {
     return {
       kind: 'capacity',
-      limit: crossing.binding,
+      limit: limit.key,
       day,
       smallestBatch,
       words: `Even once its nitrifiers have grown, this tank cannot carry ${fish.count} more ${name}: ${carry} However slowly they go in, ${limit.label} would climb over its limit${when}.`,
@@ -245,17 +258,17 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
   if (!alone.safe) {
     return {
       kind: 'first-batch',
-      limit: crossing.binding,
+      limit: limit.key,
       day,
       smallestBatch,
-      words: `Even ${smallestBatch} ${name} at once — ${found.maxBatches === 1 ? 'everything in one batch, as you allowed' : `the smallest batch in at most ${found.maxBatches} batches`} — push ${limit.label} over its limit${when}.${headroom}`,
+      words: `Even ${smallestBatch} ${name} at once — ${found.maxBatches === 1 ? 'everything in one batch, as you allowed' : `the smallest batch in at most ${found.maxBatches} batches`} — put more than 1 in 10 forecasts over a limit${when}; ${limit.label} is the one in the way.${headroom}`,
     };
   }
   return {
     kind: 'pace',
-    limit: crossing.binding,
+    limit: limit.key,
     day,
     smallestBatch,
-    words: `Batches of ${smallestBatch} ${name} fit one at a time, but the nitrifiers cannot grow into all ${fish.count} by ${dayWords(days[days.length - 1], startDate)}: ${limit.label} is the limit in the way (all at once it crosses${when}).${headroom}`,
+    words: `Batches of ${smallestBatch} ${name} fit one at a time, but the nitrifiers cannot grow into all ${fish.count} by ${dayWords(days[days.length - 1], startDate)}: ${limit.label} is the limit in the way (all at once, more than 1 in 10 forecasts cross a limit${when}).${headroom}`,
   };
 }
