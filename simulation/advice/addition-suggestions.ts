@@ -92,11 +92,11 @@ function suggestionFrom(kind: SuggestionKind, found: ScheduleSearch, fish: FishG
 }
 
 /**
- * Forecasts the suggestions may run, in all: about ten searches on a 64-member ensemble (a
- * second or two), so the answer stays bounded whatever the request. The searches on the same
+ * Forecasts the suggestions may run, in all: about eight searches on a 64-member ensemble (a
+ * second or so on a quiet machine), so the answer stays bounded whatever the request. The searches on the same
  * tank reuse the answer's ensemble; a different routine needs its own.
  */
-export const SUGGESTION_FORECASTS = 1500;
+export const SUGGESTION_FORECASTS = 1000;
 
 interface Budget {
   left: number;
@@ -181,7 +181,7 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
     } else hi = mid - 1;
   }
   hi = fish.count - 1;
-  for (let step = 0; lo <= hi && step < FEWER_FISH_OWN_SEARCHES && budget.left >= ensembleCost; step++) {
+  for (let step = 0; lo <= hi && step < FEWER_FISH_OWN_SEARCHES && budget.left >= 2 * ensembleCost; step++) {
     // With nothing safe yet, the smallest count first: "up to 1" says more than nothing.
     const mid = best ? (lo + hi) >> 1 : lo;
     const fewer = tryTo(budget, fewerQuery(mid));
