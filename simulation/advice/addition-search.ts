@@ -204,11 +204,17 @@ function search(
     if (!v.safe) lastUnsafe = v.binding;
     return v.safe;
   };
+  // Fewer fish on the same day never make a plan less safe (as bisection over days assumes
+  // later never does): a first batch no larger than one found safe needs no second look.
+  let firstSafeMax = 0;
   for (let B = 1; B <= maxB; B++) {
     const counts = splitCount(fish.count, B);
     const bound = best ? best.finishDay : Infinity; // must finish strictly earlier
     const batches: Batch[] = [{ day: days[0], count: counts[0] }];
-    if (!safe(batches)) continue; // the first batch alone is too big
+    if (counts[0] > firstSafeMax) {
+      if (!safe(batches)) continue; // the first batch alone is too big
+      firstSafeMax = counts[0];
+    }
     let ok = true;
     let idx = 0; // index into days of the previous batch
     let paceLimit: LimitKey | null = null;
