@@ -35,35 +35,8 @@ interface DraftState {
   discard(planId: string): void;
 }
 
-const byDay = (a: ScenarioEvent, b: ScenarioEvent) => a.day - b.day;
-
-/** Events sorted by day (stable, so same-day events keep the keeper's order). */
-export function sortEvents(events: readonly ScenarioEvent[]): ScenarioEvent[] {
-  return [...events].sort(byDay);
-}
-
-type AddFish = Extract<ScenarioEvent, { type: 'add-fish' }>;
-
-/** An add-fish event of the same fish (species and name) as `fish`. */
-export function addsSameFish(e: ScenarioEvent, fish: AddFish['fish']): e is AddFish {
-  return e.type === 'add-fish' && e.fish.species === fish.species && e.fish.name === fish.name;
-}
-
-/**
- * The plan's events with its additions of the schedule's fish replaced by the schedule's
- * batches on their days (advice "apply this schedule"); every other event stays. Null when a
- * batch would go in before the first planned addition of those fish: applying advice never
- * moves an event earlier than the keeper planned it.
- */
-export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] | null {
-  const batches = schedule.filter((e): e is AddFish => e.type === 'add-fish');
-  if (batches.length === 0) return null;
-  const fish = batches[0].fish;
-  const planned = events.filter((e) => addsSameFish(e, fish));
-  const earliest = planned.length > 0 ? Math.min(...planned.map((e) => e.day)) : 0;
-  if (batches.some((b) => !addsSameFish(b, fish) || b.day < earliest)) return null;
-  return sortEvents([...events.filter((e) => !addsSameFish(e, fish)), ...batches]);
-}
+/** The schedule rule lives in shared/ (the server searches by it too); re-exported for the editor. */
+export { applySchedule, sortEvents } from '@/shared/plan-schedule';
 
 export const useDraftStore = create<DraftState>((set) => {
   const edit = (planId: string, f: (d: PlanDraft) => Partial<PlanDraft>) =>

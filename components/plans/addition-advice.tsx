@@ -6,6 +6,7 @@ import { useAdditionAdvice } from '@/hooks/use-plans';
 import { additionBody, DEFAULT_MAX_BATCHES, DEFAULT_SEARCH_DAYS, type AdditionLimitsText } from '@/lib/addition-form';
 import { plainNumber } from '@/shared/forecast-view';
 import { addDays } from '@/shared/plan-check-days';
+import { plannedDay } from '@/shared/plan-schedule';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import type { additionSuggestionSchema } from '@/simulation/advice/schemas';
 import { fishName } from '@/simulation/advice/schedule-words';
@@ -28,7 +29,7 @@ export function AdditionAdvice({ tank, planId, events, startDate, onApplySchedul
   const [applied, setApplied] = useState<'applied' | 'refused' | null>(null);
   const fish = plannedAddition(events);
   if (!fish) return <AppText tone="textMuted">This plan adds no fish. Add an “Add fish” event to ask how fast it can go.</AppText>;
-  const plannedDay = Math.min(...events.filter((e) => e.type === 'add-fish' && e.fish.species === fish.species && e.fish.name === fish.name).map((e) => e.day));
+  const fromDay = plannedDay(events, fish);
   const name = fishName(fish);
 
   const run = (text: AdditionLimitsText) => {
@@ -49,7 +50,7 @@ export function AdditionAdvice({ tank, planId, events, startDate, onApplySchedul
 
   return (
     <Section testID="advice-addition">
-      <AppText>{`How fast can ${fish.count} ${name} go in without a spike? The search starts on day ${plannedDay}, the day you planned; the plan's other events (water changes, doses, other fish) stay.`}</AppText>
+      <AppText>{`How fast can ${fish.count} ${name} go in without a spike? The search starts on day ${fromDay}, the day you planned; the plan's other events (water changes, doses, other fish) stay.`}</AppText>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.md }}>
         <View style={{ flexGrow: 1, flexBasis: 160 }}>
           <TextField
@@ -120,7 +121,7 @@ export function AdditionAdvice({ tank, planId, events, startDate, onApplySchedul
             <Button
               label="Apply this schedule"
               onPress={() => apply(data.events as ScenarioEvent[])}
-              accessibilityLabel={`Apply this schedule: replaces the plan's additions of ${name}, from day ${plannedDay} on`}
+              accessibilityLabel={`Apply this schedule: replaces the plan's additions of ${name}, from day ${fromDay} on`}
               testID="advice-apply"
             />
           ) : null}

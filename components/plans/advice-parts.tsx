@@ -5,6 +5,7 @@ import type { z } from 'zod';
 import { useTheme } from '@/hooks/use-theme';
 import { isApiRequestError } from '@/lib/api-client';
 import { plainNumber } from '@/shared/forecast-view';
+import { addsSameFish } from '@/shared/plan-schedule';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { planOutcomeSchema } from '@/simulation/advice/schemas';
@@ -27,7 +28,7 @@ export function plannedAddition(events: readonly ScenarioEvent[]) {
   const adds = events.filter((e): e is Extract<ScenarioEvent, { type: 'add-fish' }> => e.type === 'add-fish');
   if (adds.length === 0) return null;
   const first = adds[0].fish;
-  const same = adds.filter((e) => e.fish.species === first.species && e.fish.name === first.name);
+  const same = adds.filter((e) => addsSameFish(e, first));
   return { ...first, count: same.reduce((n, e) => n + e.fish.count, 0) };
 }
 

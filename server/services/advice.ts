@@ -11,6 +11,7 @@ import type {
 } from '../../shared/schemas/plan.js';
 import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../simulation/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
+import { addsSameFish, plannedDay } from '../../shared/plan-schedule.js';
 import {
   additionResponseSchema,
   calibrationResponseSchema,
@@ -57,11 +58,6 @@ async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], o
   }
 }
 
-/** The plan's add-fish events of the same fish (species and name) as the advice is asked about. */
-function sameFish(e: ScenarioEvent, fish: { species?: string; name?: string }): boolean {
-  return e.type === 'add-fish' && e.fish.species === fish.species && e.fish.name === fish.name;
-}
-
 /**
  * Fastest safe schedule for the fish. On a plan, the schedule replaces the plan's own additions
  * of these fish (its other events stay in the forecast), never starts before the first of them
@@ -71,10 +67,8 @@ function sameFish(e: ScenarioEvent, fish: { species?: string; name?: string }): 
 export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
   const plan = await planOf(ds, tank, planId);
-  const planned = (plan?.events ?? []).filter((e) => sameFish(e, request.fish));
-  const events = (plan?.events ?? []).filter((e) => !sameFish(e, request.fish));
-  const plannedDay = planned.length > 0 ? Math.min(...planned.map((e) => e.day)) : 0;
-  const firstDay = Math.max(plannedDay, request.constraints?.firstDay ?? 0);
+  const events = (plan?.events ?? []).filter((e) => !addsSameFish(e, request.fish));
+  const firstDay = Math.max(plannedDay(plan?.events ?? [], request.fish), request.constraints?.firstDay ?? 0);
   const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365 });
   const { value } = await runEngine(
     { kind: 'addition', request: { ...request, constraints: { ...request.constraints, firstDay }, ...(plan ? { startDate: plan.startDate } : {}), scenario } },

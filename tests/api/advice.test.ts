@@ -9,7 +9,7 @@ import { capacityTestResponseSchema, ensembleResponseSchema, planForecastRespons
 import { addDays } from '../../shared/plan-check-days.js';
 import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../shared/api-error.js';
 import { forecastVerdict } from '../../shared/forecast-view.js';
-import { applySchedule } from '../../lib/draft-store.js';
+import { applySchedule } from '../../shared/plan-schedule.js';
 import { dayAsDate } from '../../simulation/calendar.js';
 import type { ScenarioEvent } from '../../simulation/scenario.js';
 import { closeEnginePool } from '../../server/workers/engine-pool.js';
