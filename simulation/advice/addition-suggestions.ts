@@ -4,7 +4,7 @@
  * make it possible — each suggestion found by the same search and checked on the whole
  * ensemble like the answer itself, so a suggestion is a schedule that works, never a guess.
  *
- * Tried in order, each changing one thing: more (smaller) batches, a later finish, a
+ * Each changes one thing: more (smaller) batches, a later finish, a
  * stricter routine water change (dilution holds ammonia and nitrite down while the
  * nitrifiers grow), and the largest number of these fish that can go in within the limits.
  */
@@ -43,6 +43,7 @@ export const FEWER_FISH_OWN_SEARCHES = 3;
 const HEADROOM_NOTE_SHARE = 0.8;
 
 export type SuggestionKind = 'more-batches' | 'later-finish' | 'water-changes' | 'fewer-fish';
+const SUGGESTION_ORDER: readonly SuggestionKind[] = ['more-batches', 'later-finish', 'water-changes', 'fewer-fish'];
 
 export interface AdditionSuggestion {
   kind: SuggestionKind;
@@ -141,26 +142,8 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
     if (later) out.push(suggestionFrom('later-finish', later, fish, `Allowing ${searchDays} days instead of ${found.searchDays}, it works: ${scheduleWords(later.result!.batches, startDate)}.`, null));
   }
 
-  // A routine changes the tank, so each try runs its own ensemble: tried while the budget
-  // still covers one more of what the answer's own ensemble cost.
+  // A fresh ensemble costs about what the answer's own did.
   const ensembleCost = found.judge.ensemble.forecasts.length + found.judge.ensemble.dropped;
-  const current = routineRate(scenario.tank.routineWaterChange);
-  for (const routine of ROUTINE_LADDER.filter((r) => routineRate(r) > current)) {
-    if (budget.left < 2 * ensembleCost) break;
-    const withRoutine: Scenario = { ...scenario, tank: { ...scenario.tank, routineWaterChange: routine } };
-    const changed = tryTo(budget, { ...query, scenario: withRoutine });
-    if (!changed) continue;
-    out.push(
-      suggestionFrom(
-        'water-changes',
-        changed,
-        fish,
-        `With a ${routine.percent} % water change every ${routine.everyDays} days (set as the tank's routine) it works: ${scheduleWords(changed.result!.batches, startDate)}.`,
-        routine,
-      ),
-    );
-    break;
-  }
 
   // The largest number of these fish with a safe schedule within the same limits (bisection:
   // fewer fish never make a plan less safe), in at most FEWER_FISH_SEARCHES searches and
@@ -196,7 +179,28 @@ export function additionSuggestions(query: ScheduleQuery, found: ScheduleSearch,
       suggestionFrom('fewer-fish', best, { ...fish, count: n }, `Up to ${n} ${name} can go in safely within ${found.searchDays} days: ${scheduleWords(best.result!.batches, startDate)}.`, null),
     );
   }
-  return out;
+  // A routine changes the tank, so each try runs its own ensemble: tried while the budget
+  // still covers two more of them.
+  const current = routineRate(scenario.tank.routineWaterChange);
+  for (const routine of ROUTINE_LADDER.filter((r) => routineRate(r) > current)) {
+    if (budget.left < 2 * ensembleCost) break;
+    const withRoutine: Scenario = { ...scenario, tank: { ...scenario.tank, routineWaterChange: routine } };
+    const changed = tryTo(budget, { ...query, scenario: withRoutine });
+    if (!changed) continue;
+    out.push(
+      suggestionFrom(
+        'water-changes',
+        changed,
+        fish,
+        `With a ${routine.percent} % water change every ${routine.everyDays} days (set as the tank's routine) it works: ${scheduleWords(changed.result!.batches, startDate)}.`,
+        routine,
+      ),
+    );
+    break;
+  }
+
+  // Shown in this order whatever order they were found in (the cheap searches first).
+  return out.sort((x, y) => SUGGESTION_ORDER.indexOf(x.kind) - SUGGESTION_ORDER.indexOf(y.kind));
 }
 
 /**
