@@ -35,30 +35,8 @@ interface DraftState {
   discard(planId: string): void;
 }
 
-const byDay = (a: ScenarioEvent, b: ScenarioEvent) => a.day - b.day;
-
-/** Events sorted by day (stable, so same-day events keep the keeper's order). */
-export function sortEvents(events: readonly ScenarioEvent[]): ScenarioEvent[] {
-  return [...events].sort(byDay);
-}
-
-const kindKey = (g: { species?: string; name?: string }) => g.species ?? g.name ?? '';
-
-/**
- * The plan's events with the scheduled fish's additions replaced by the schedule's (advice
- * "apply this schedule"): the scheduled kinds leave every add-fish event (an event left with no
- * fish goes), other kinds and other events stay.
- */
-export function applySchedule(events: readonly ScenarioEvent[], schedule: readonly ScenarioEvent[]): ScenarioEvent[] {
-  const adds = schedule.filter((e) => e.type === 'add-fish');
-  const scheduled = new Set(adds.flatMap((e) => e.fish.map(kindKey)));
-  const kept = events.flatMap((e): ScenarioEvent[] => {
-    if (e.type !== 'add-fish') return [e];
-    const fish = e.fish.filter((g) => !scheduled.has(kindKey(g)));
-    return fish.length === e.fish.length ? [e] : fish.length ? [{ ...e, fish }] : [];
-  });
-  return sortEvents([...kept, ...adds]);
-}
+/** The schedule rule lives in shared/ (the server searches by it too); re-exported for the editor. */
+export { applySchedule, sortEvents } from '@/shared/plan-schedule';
 
 /**
  * The events a list shows for a plan: the unsaved draft's while there is one (so a count never

@@ -5,7 +5,11 @@
  * day or two, nitrite a few days later), then every few days for two weeks.
  */
 import type { ScenarioEvent } from '../simulation/scenario';
+import { addDays } from '../simulation/calendar';
 import { defaultHorizonDays } from './tank-scenario';
+
+/** Plan days as dates: the engine's calendar (one rule for the plan, its advice and its print-out). */
+export { addDays };
 
 export interface PlanCheckDay {
   day: number;
@@ -82,13 +86,6 @@ function checksFor(e: ScenarioEvent): [number, string][] {
     case 'temperature':
       return AFTER_SMALL_CHANGE.map((k) => [e.day + k, `temperature changed on day ${e.day}`]);
   }
-}
-
-/** Adds whole days to a YYYY-MM-DD date (UTC); '' when the date is unreadable. */
-export function addDays(startDate: string, days: number): string {
-  const t = Date.parse(`${startDate}T00:00:00Z`);
-  if (Number.isNaN(t)) return '';
-  return new Date(t + Math.round(days) * 86_400_000).toISOString().slice(0, 10);
 }
 
 /**

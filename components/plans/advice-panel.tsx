@@ -1,15 +1,11 @@
-import { useState, type ReactNode } from 'react';
+import { useState } from 'react';
 import { Pressable, View } from 'react-native';
-import type { z } from 'zod';
 import { useTheme } from '@/hooks/use-theme';
-import { useAdditionAdvice, useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
+import { useCapacityTest, useRemovalAdvice, useRescueAdvice } from '@/hooks/use-plans';
 import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
 import { requestErrorLine } from '@/lib/form-errors';
 import { parseDecimal } from '@/lib/units-format';
 import { plainNumber } from '@/shared/forecast-view';
-import type { ScenarioEvent } from '@/simulation/scenario';
-import type { TankDetail } from '@/shared/schemas/tank';
-import type { planOutcomeSchema } from '@/simulation/advice/schemas';
 import { AppText, Heading } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
@@ -18,8 +14,10 @@ import { CautionsList } from '@/components/forecast/cautions-list';
 import { FitToTests } from '@/components/tanks/fit-to-tests';
 import { speciesDisplayName } from '@/components/tanks/tank-labels';
 import { fishName } from '@/components/plans/fish-groups';
+import { errorText, Section, Words, type AdvicePanelProps } from '@/components/plans/advice-parts';
+import { AdditionAdvice } from '@/components/plans/addition-advice';
 
-type Outcome = z.infer<typeof planOutcomeSchema>;
+export type { AdvicePanelProps } from '@/components/plans/advice-parts';
 
 const TABS: { key: AdviceTab; label: string }[] = [
   { key: 'addition', label: 'How fast' },
@@ -28,111 +26,6 @@ const TABS: { key: AdviceTab; label: string }[] = [
   { key: 'calibration', label: 'Fit to my tests' },
   { key: 'capacity-test', label: 'Capacity test' },
 ];
-
-export interface AdvicePanelProps {
-  tank: TankDetail;
-  planId: string;
-  events: readonly ScenarioEvent[];
-  onApplySchedule(schedule: ScenarioEvent[]): void;
-}
-
-/** The fish the plan adds: the first kind of its first add event, with the plan's total of that kind. */
-export function plannedAddition(events: readonly ScenarioEvent[]) {
-  const groups = events.flatMap((e) => (e.type === 'add-fish' ? e.fish : []));
-  if (groups.length === 0) return null;
-  const first = groups[0];
-  const same = groups.filter((g) => g.species === first.species && g.name === first.name);
-  return { ...first, count: same.reduce((n, g) => n + g.count, 0) };
-}
-
-function Words({ lines, testID }: { lines: readonly string[]; testID?: string }) {
-  const { space } = useTheme();
-  return (
-    <View testID={testID} style={{ gap: space.xs }}>
-      {lines.map((l) => (
-        <AppText key={l}>{l}</AppText>
-      ))}
-    </View>
-  );
-}
-
-/** Peak of the binding limit and days over it, at the band's upper edge (what advice judges by). */
-function OutcomeFigures({ title, outcome, labels, testID }: { title: string; outcome: Outcome; labels: Record<string, string>; testID: string }) {
-  const { space, colors, radii } = useTheme();
-  const edge = outcome.upperEdge;
-  const worst = edge.limits.find((l) => l.key === edge.binding) ?? edge.limits[0];
-  const over = edge.limits.reduce((m, l) => Math.max(m, l.daysOver), 0);
-  return (
-    <View testID={testID} style={{ flex: 1, minWidth: 140, gap: space.xxs, padding: space.sm, borderWidth: 1, borderColor: colors.border, borderRadius: radii.md }}>
-      <AppText weight="bold">{title}</AppText>
-      <AppText tone={edge.safe ? 'okText' : 'dangerText'}>{edge.safe ? 'Stays under the limits' : 'Goes over a limit'}</AppText>
-      {worst ? <AppText variant="caption">{`Highest: ${plainNumber(worst.peakRatio * 100)} % of the ${labels[worst.key] ?? worst.key} limit, day ${Math.round(worst.peakDay)}`}</AppText> : null}
-      <AppText variant="caption">{`Days over a limit: ${plainNumber(over)}`}</AppText>
-      <AppText variant="caption" tone="textMuted">{`${outcome.membersCrossing} of ${outcome.members} plausible forecasts cross a limit`}</AppText>
-    </View>
-  );
-}
-
-function Section({ children, testID }: { children: ReactNode; testID: string }) {
-  const { space } = useTheme();
-  return (
-    <View testID={testID} style={{ gap: space.md }}>
-      {children}
-    </View>
-  );
-}
-
-function AdditionAdvice({ tank, planId, events, onApplySchedule }: AdvicePanelProps) {
-  const { space } = useTheme();
-  const advice = useAdditionAdvice(tank.id);
-  const fish = plannedAddition(events);
-  if (!fish) return <AppText tone="textMuted">This plan adds no fish. Add an “Add fish” event to ask how fast it can go.</AppText>;
-  const data = advice.data;
-  const labels = Object.fromEntries((data?.limits ?? []).map((l) => [l.key, l.label]));
-  const name = fishName(fish.species, fish.name);
-  return (
-    <Section testID="advice-addition">
-      <AppText>{`How fast can ${fish.count} ${name} go in without a spike? The plan's other saved events (water changes, doses) stay.`}</AppText>
-      <Button
-        label="How fast can it go?"
-        busy={advice.isPending}
-        busyLabel="Working it out…"
-        onPress={() => advice.mutate({ planId, fish, searchDays: 60 })}
-        testID="advice-addition-run"
-      />
-      {advice.isError ? <Banner tone="danger" title="No advice this time" message={requestErrorLine(advice.error)} testID="advice-error" /> : null}
-      {data ? (
-        <View testID="advice-addition-result" style={{ gap: space.md }}>
-          <Heading level={3}>
-            {data.status === 'all-at-once-is-safe' ? 'All at once looks safe' : data.status === 'staged' ? `In ${data.batches.length} batches` : 'No safe schedule found'}
-          </Heading>
-          {data.batches.length > 0 ? (
-            <View testID="advice-batches">
-              {data.batches.map((b) => (
-                <AppText key={b.day}>{`Day ${b.day}: ${b.count} fish`}</AppText>
-              ))}
-            </View>
-          ) : null}
-          <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.sm }}>
-            {data.staged ? <OutcomeFigures title="This schedule" outcome={data.staged} labels={labels} testID="advice-staged" /> : null}
-            <OutcomeFigures title="All at once" outcome={data.allAtOnce} labels={labels} testID="advice-all-at-once" />
-          </View>
-          <AppText testID="advice-binding">{`The limit that sets the pace: ${data.binding.label}, ${plainNumber(data.binding.value)} ${data.binding.unit}.`}</AppText>
-          <Words lines={data.explanation} />
-          {data.status !== 'no-safe-schedule' && data.events.length > 0 ? (
-            <Button
-              label="Apply this schedule"
-              onPress={() => onApplySchedule(data.events as ScenarioEvent[])}
-              accessibilityLabel="Apply this schedule: replaces the plan's add-fish events"
-              testID="advice-apply"
-            />
-          ) : null}
-          <CautionsList extra={data.cautions} testID="advice-cautions" />
-        </View>
-      ) : null}
-    </Section>
-  );
-}
 
 type RemovalAnswer = NonNullable<ReturnType<typeof useRemovalAdvice>['data']>;
 

@@ -272,9 +272,13 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
           tank={tank}
           planId={planId}
           events={events}
+          startDate={saved.startDate}
           onApplySchedule={(schedule) => {
+            const next = applySchedule(useDraftStore.getState().drafts[planId]?.events ?? events, schedule);
+            if (!next) return false;
             select(planId, null);
-            setEvents(planId, applySchedule(useDraftStore.getState().drafts[planId]?.events ?? events, schedule));
+            setEvents(planId, next);
+            return true;
           }}
         />
       </Card>

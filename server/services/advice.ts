@@ -11,6 +11,7 @@ import type {
 } from '../../shared/schemas/plan.js';
 import { parseScenario, ScenarioError, type Scenario, type ScenarioEvent, type Start } from '../../simulation/scenario.js';
 import { tankScenario } from '../../shared/tank-scenario.js';
+import { plannedDay, withoutFish } from '../../shared/plan-schedule.js';
 import {
   additionResponseSchema,
   calibrationResponseSchema,
@@ -40,12 +41,12 @@ const DAY_MS = 86_400_000;
 /** Most readings one calibration uses (calibrationRequestSchema allows 2000; these are the newest). */
 export const CALIBRATION_MAX_READINGS = 500;
 
-/** The plan's events and its start date (day 0); without a plan, no events and today (UTC). */
-async function planOf(ds: DataSource, tank: Tank, planId: string | undefined, now = new Date()): Promise<{ events: ScenarioEvent[]; startDate: string }> {
-  if (!planId) return { events: [], startDate: now.toISOString().slice(0, 10) };
+/** The plan (or none), its events and its start date (day 0); without a plan, no events and today (UTC). */
+async function planOf(ds: DataSource, tank: Tank, planId: string | undefined, now = new Date()): Promise<{ plan: Plan | null; events: ScenarioEvent[]; startDate: string }> {
+  if (!planId) return { plan: null, events: [], startDate: now.toISOString().slice(0, 10) };
   const plan = await ds.getRepository(Plan).findOneBy({ id: planId, tankId: tank.id });
   if (!plan) throw notFound('No such plan on this tank.');
-  return { events: plan.events, startDate: plan.startDate };
+  return { plan, events: plan.events, startDate: plan.startDate };
 }
 
 /**
@@ -63,13 +64,22 @@ async function scenarioOf(ds: DataSource, tank: Tank, events: ScenarioEvent[], o
   }
 }
 
-/** Fastest safe schedule for the fish; the plan's own add-fish events are left out (the schedule replaces them). */
+/**
+ * Fastest safe schedule for the fish. On a plan, the schedule replaces the plan's own additions
+ * of these fish (its other events stay in the forecast), never starts before the first of them
+ * (the keeper's planned day; a later `firstDay` asked for is kept), and is dated from the
+ * plan's start date.
+ */
 export async function additionAdvice(ds: DataSource, tank: Tank, body: z.output<typeof additionAdviceBodySchema>, caller?: EngineCaller) {
   const { planId, ...request } = body;
   const plan = await planOf(ds, tank, planId);
-  const events = plan.events.filter((e) => e.type !== 'add-fish');
+  const events = withoutFish(plan.events, request.fish);
+  const firstDay = Math.max(plannedDay(plan.events, request.fish), request.constraints?.firstDay ?? 0);
   const scenario = await scenarioOf(ds, tank, events, { horizonDays: 365, startDate: plan.startDate });
-  const { value } = await runEngine({ kind: 'addition', request: { ...request, scenario } }, caller);
+  const { value } = await runEngine(
+    { kind: 'addition', request: { ...request, constraints: { ...request.constraints, firstDay }, ...(plan.plan ? { startDate: plan.startDate } : {}), scenario } },
+    caller,
+  );
   return additionResponseSchema.parse(value);
 }
 

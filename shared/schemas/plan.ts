@@ -164,7 +164,8 @@ export type PlanForecastResponse = z.infer<typeof planForecastResponseSchema>;
 
 const planRef = { planId: z.string().uuid('Not a plan id.').optional() };
 
-export const additionAdviceBodySchema = additionRequestSchema.omit({ scenario: true }).extend(planRef);
+/** The plan's start date comes from the plan itself (it dates the answer). */
+export const additionAdviceBodySchema = additionRequestSchema.omit({ scenario: true, startDate: true }).extend(planRef);
 export const removalAdviceBodySchema = removalRequestSchema.omit({ scenario: true }).extend(planRef);
 export const rescueAdviceBodySchema = rescueRequestSchema.omit({ scenario: true }).extend(planRef);
 export const ensembleBodySchema = z.object({

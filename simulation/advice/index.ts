@@ -1,5 +1,5 @@
 /** The advice and calibration layer (issue 4): re-exports only. */
-export { fastestSafeSchedule, splitCount, type AdditionAdvice, type AdditionRequest, type Batch } from './addition-schedule';
+export { fastestSafeSchedule, splitCount, type AdditionAdvice, type AdditionBlocker, type AdditionRequest, type AdditionSuggestion, type Batch } from './addition-schedule';
 export { supplementaryDosing, type RemovalAdvice, type RemovalRequest } from './removal-dosing';
 export { rescueWaterChanges, type RescueAdvice, type RescueRequest, type WaterChange } from './rescue-water-changes';
 export { calibrate, type CalibrationRequest, type CalibrationResult, type Reading } from './calibration';

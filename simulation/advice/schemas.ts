@@ -35,14 +35,16 @@ export const additionRequestSchema = z.object({
   constraints: z
     .object({
       minBatch: z.number().int().min(1).max(100000).optional(),
-      maxBatches: z.number().int().min(1).max(20).optional(),
+      maxBatches: z.number().int('A whole number.').min(1, 'At least 1 batch.').max(20, 'At most 20 batches.').optional(),
       firstDay: day.optional(),
       latestFinishDay: day.optional(),
       allowedDays: z.array(z.number().int().min(0).max(3650)).max(400).optional(),
     })
     .optional(),
-  searchDays: z.number().int().min(1).max(365).optional(),
+  searchDays: z.number().int().min(1, 'At least 1 day.').max(365, 'At most 365 days.').optional(),
   settings: adviceSettingsSchema.optional(),
+  /** The plan's start date: days are then also told as dates. */
+  startDate: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD.').optional(),
 });
 
 export const removalRequestSchema = z.object({
@@ -150,15 +152,41 @@ const judgementSchema = z.object({
 const words = { explanation: z.array(z.string()).min(1), cautions: z.array(z.string()).min(1) };
 const eventList = z.array(z.record(z.string(), z.unknown()));
 
+const batchList = z.array(z.object({ day: z.number(), count: z.number().int() }));
+export const additionSuggestionSchema = z.object({
+  kind: z.enum(['more-batches', 'later-finish', 'water-changes', 'fewer-fish']),
+  summary: z.string(),
+  count: z.number().int(),
+  batches: batchList,
+  finishDay: z.number(),
+  events: eventList,
+  maxBatches: z.number().int(),
+  searchDays: z.number().int(),
+  routineWaterChange: z.object({ percent: z.number(), everyDays: z.number() }).nullable(),
+});
+export const additionBlockerSchema = z.object({
+  kind: z.enum(['capacity', 'first-batch', 'pace']),
+  limit: limitKey,
+  day: z.number().nullable(),
+  smallestBatch: z.number().int(),
+  words: z.string(),
+});
 export const additionResponseSchema = z.object({
   status: z.enum(['all-at-once-is-safe', 'staged', 'no-safe-schedule']),
-  batches: z.array(z.object({ day: z.number(), count: z.number().int() })),
+  summary: z.string(),
+  batches: batchList,
   finishDay: z.number().nullable(),
+  finishDate: z.string().nullable(),
   events: eventList,
+  earliestDay: z.number(),
+  searchDays: z.number().int(),
+  maxBatches: z.number().int(),
   staged: planOutcomeSchema.nullable(),
   allAtOnce: planOutcomeSchema,
   binding: appliedLimitSchema,
   limits: z.array(appliedLimitSchema),
+  blocker: additionBlockerSchema.nullable(),
+  suggestions: z.array(additionSuggestionSchema),
   judgement: judgementSchema,
   ...words,
 });

@@ -5,7 +5,13 @@ import {
   removalResponseSchema,
   rescueResponseSchema,
 } from '../../simulation/advice/schemas.js';
-import { capacityTestResponseSchema, ensembleResponseSchema } from '../../shared/schemas/plan.js';
+import { capacityTestResponseSchema, ensembleResponseSchema, planForecastResponseSchema } from '../../shared/schemas/plan.js';
+import { addDays } from '../../shared/plan-check-days.js';
+import { CSRF_HEADER, CSRF_HEADER_VALUE } from '../../shared/api-error.js';
+import { forecastVerdict } from '../../shared/forecast-view.js';
+import { applySchedule } from '../../shared/plan-schedule.js';
+import { dayAsDate } from '../../simulation/calendar.js';
+import type { ScenarioEvent } from '../../simulation/scenario.js';
 import { closeEnginePool } from '../../server/workers/engine-pool.js';
 import { GOOD_PASSWORD, createLivestock, createPlan, createReading, createTank, createUser } from './helpers/factories.js';
 import { client, useTestApp } from './helpers/test-app.js';
@@ -57,7 +63,51 @@ describe('POST /api/tanks/:tankId/advice/addition', () => {
     expect(advice.cautions.join(' ')).toMatch(/estimate/);
   });
 
+  it('keeps the planned day: neons planned for day 7 are never scheduled earlier, the answer is dated from the plan start, and applying it keeps the forecast under the limits (issue 14)', async () => {
+    const { user, c } = await keeper();
+    const tank = await settledTank(user.id);
+    const neons = { species: 'neon-tetra', count: 6, lengthCm: 3 };
+    const platies = { species: 'platy', count: 2 };
+    const events: ScenarioEvent[] = [
+      { type: 'add-fish', day: 2, fish: [platies] },
+      { type: 'add-fish', day: 7, fish: [neons] },
+      { type: 'water-change', day: 10, percent: 25 },
+    ];
+    const plan = await createPlan(ctx.deps.dataSource, tank.id, { startDate: '2026-12-04', events });
+    // Asking for an earlier first day does not move the planned day.
+    const res = await c.post(`/api/tanks/${tank.id}/advice/addition`, { planId: plan.id, fish: neons, searchDays: 60, constraints: { firstDay: 0 } }).expect(200);
+    const advice = additionResponseSchema.parse(res.body);
+    expect(advice.earliestDay).toBe(7);
+    expect(advice.status).not.toBe('no-safe-schedule');
+    expect(Math.min(...advice.batches.map((b) => b.day))).toBeGreaterThanOrEqual(7);
+    expect(advice.finishDate).toBe(addDays('2026-12-04', advice.finishDay!));
+    expect(advice.summary).toContain(dayAsDate('2026-12-04', advice.finishDay!));
+
+    // Apply as the plan editor does, save, and forecast the saved plan.
+    const next = applySchedule(events, advice.events as ScenarioEvent[])!;
+    expect(next.filter((e) => e.type === 'add-fish' && e.fish[0].species === 'platy')).toEqual([events[0]]);
+    expect(next.filter((e) => e.type === 'add-fish' && e.fish[0].species === 'neon-tetra').map((e) => e.day)).toEqual(advice.batches.map((b) => b.day));
+    await c.agent.patch(`/api/plans/${plan.id}`).set(CSRF_HEADER, CSRF_HEADER_VALUE).send({ events: next }).expect(200);
+    const forecast = planForecastResponseSchema.parse((await c.post(`/api/plans/${plan.id}/forecast`, {}).expect(200)).body);
+    // The advice promised the band's upper edge stays under; the saved plan's own verdict agrees.
+    expect(forecastVerdict(forecast.forecast).level).not.toBe('over');
+  });
+
+  it('when nothing is safe within the limits, names the limit in the way and offers suggestions it checked', async () => {
+    const { user, c } = await keeper();
+    const tank = await settledTank(user.id);
+    const many = { species: 'platy', count: 30 };
+    const res = await c.post(`/api/tanks/${tank.id}/advice/addition`, { fish: many, searchDays: 30, constraints: { maxBatches: 1 } }).expect(200);
+    const advice = additionResponseSchema.parse(res.body);
+    if (advice.status !== 'no-safe-schedule') return expect(advice.batches).toEqual([{ day: 0, count: 30 }]);
+    expect(advice.blocker).not.toBeNull();
+    expect(advice.binding.key).toBe(advice.blocker!.limit);
+    expect(advice.suggestions.every((s) => s.batches.length > 0 && s.summary.length > 0)).toBe(true);
+    expect(advice.finishDate).toBeNull();
+  });
+
   it.each([
+    ['searchDays', { fish: rasboras, searchDays: 0 }],
     ['fish.count', { fish: { ...rasboras, count: 0 } }],
     ['fish', {}],
     ['constraints.maxBatches', { fish: rasboras, constraints: { maxBatches: 50 } }],

@@ -35,6 +35,21 @@ describe('applySchedule', () => {
     expect(next).toEqual([add(0, 4), wc(4), add(9, 8)]);
   });
 
+  it('keeps the planned day: 20 neons planned for day 7 go in on day 7 and later, never earlier (issue 14)', () => {
+    expect(applySchedule([wc(4), add(7, 20)], [add(7, 10), add(12, 10)])).toEqual([wc(4), add(7, 10), add(12, 10)]);
+    expect(applySchedule([wc(4), add(7, 20)], [add(0, 20)])).toBeNull();
+    expect(applySchedule([wc(4), add(7, 20)], [add(7, 10), add(6, 10)])).toBeNull();
+  });
+
+  it("replaces only the schedule's own fish: another species' addition stays", () => {
+    const platy: ScenarioEvent = { type: 'add-fish', day: 3, fish: [{ species: 'platy', count: 5 }] };
+    expect(applySchedule([add(0, 12), platy], [add(0, 6), add(5, 6)])).toEqual([add(0, 6), platy, add(5, 6)]);
+  });
+
+  it('refuses an empty schedule (nothing to apply)', () => {
+    expect(applySchedule([add(0, 12)], [])).toBeNull();
+  });
+
   it('sorts events by day, keeping same-day order', () => {
     expect(sortEvents([wc(3), add(1, 2), wc(1)])).toEqual([add(1, 2), wc(1), wc(3)]);
   });
