@@ -44,3 +44,19 @@ export function formErrorsFromRequest(error: unknown, formFields: readonly strin
     Object.keys(fields).length === 0 ? [error.message, ...others].join(' ') : others.length ? others.join(' ') : null;
   return { fields, banner };
 }
+
+const PLACES: Record<string, string> = { events: 'Event', livestock: 'Fish', fish: 'Fish' };
+
+/**
+ * A refusal's messages in the keeper's words, each led by where it sits when that is a numbered
+ * item ("Event 2: …"), never by the request path (`events.1.fish.lengthCm`).
+ */
+export function placedMessages(fields: Record<string, string>): string {
+  return Object.entries(fields)
+    .map(([path, message]) => {
+      const [head, index] = path.split('.');
+      const place = PLACES[head];
+      return place && /^\d+$/.test(index ?? '') ? `${place} ${Number(index) + 1}: ${message}` : message;
+    })
+    .join(' ');
+}

@@ -7,6 +7,7 @@
  * where that is positive, else 0 (the zone cannot hold a population at that S).
  */
 import { zeros } from './arrays';
+import { formatFigure } from './format-number';
 import type { Model } from './model';
 
 export interface SteadyState {
@@ -23,7 +24,9 @@ export interface SteadyState {
 /** No steady state: the load exceeds what the zones can ever carry. */
 export class LoadTooHighError extends Error {
   constructor(readonly loadMgNPerDay: number, readonly maxMgNPerDay: number) {
-    super(`A load of ${loadMgNPerDay.toPrecision(3)} mg N/day exceeds what these zones can carry (about ${maxMgNPerDay.toPrecision(3)} mg N/day).`);
+    super(
+      `The fish and their food would put about ${formatFigure(loadMgNPerDay)} mg N of ammonia a day into the water, more than the filter bacteria this tank has room for can ever clear (about ${formatFigure(maxMgNPerDay)} mg N a day). Fewer fish, less food or more filter would help.`,
+    );
     this.name = 'LoadTooHighError';
   }
 }

@@ -6,7 +6,7 @@
  */
 import { ScenarioError, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
 import { fishMassG } from './bioload';
-import { findSpecies } from './catalogue';
+import { findSpecies, fishGroupName } from './catalogue';
 import { ammoniaSolutionToMgNPerL, ammoniumChlorideToMgNPerL } from './dosing';
 import type { Parameters } from './parameters';
 
@@ -53,15 +53,16 @@ function groupKey(f: { species?: string; name?: string }): string {
 
 function massOf(f: FishGroup, path: string, b: number): number {
   if (f.species !== undefined && !findSpecies(f.species)) {
-    throw new ScenarioError({ [`${path}.species`]: `Unknown species "${f.species}"; use a catalogue id or a custom name with lengthCm.` });
+    throw new ScenarioError({ [`${path}.species`]: `"${f.species}" is not in the species list: pick a species from the list, or give the fish a name of your own and its length.` });
   }
   return fishMassG(f, b);
 }
 
-function removeFrom(groups: Group[], key: string, count: number, path: string): void {
+function removeFrom(groups: Group[], fish: { species?: string; name?: string }, count: number, path: string): void {
+  const key = groupKey(fish);
   const available = groups.filter((g) => g.key === key).reduce((s, g) => s + g.count, 0);
   if (available < count) {
-    throw new ScenarioError({ [`${path}.count`]: `Only ${available} of "${key}" in the tank at that time; cannot take out ${count}.` });
+    throw new ScenarioError({ [`${path}.count`]: `Only ${available} ${fishGroupName(fish)} in the tank at that time; cannot take out ${count}.` });
   }
   let left = count;
   for (const g of groups) {
@@ -87,7 +88,7 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
       const every = event.repeatEveryDays;
       const times = every === undefined ? 1 : (event.repeatCount ?? Math.floor((horizonDays - event.day) / every) + 1);
       if (event.repeatCount !== undefined && every === undefined && event.repeatCount > 1) {
-        throw new ScenarioError({ [`events.${index}.repeatEveryDays`]: 'A repeated dose needs repeatEveryDays.' });
+        throw new ScenarioError({ [`events.${index}.repeatEveryDays`]: 'A repeated dose needs the number of days between doses.' });
       }
       // Repeats past the horizon are outside the forecast and are dropped.
       for (let r = 0; r < times; r++) {
@@ -133,9 +134,9 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
       groups.push({ key: groupKey(event.fish), massG: massOf(event.fish, `${path}.fish`, p.lengthWeightB), count: event.fish.count });
     } else if (event.type === 'move-fish') {
       massOf(event.fish, `${path}.fish`, p.lengthWeightB);
-      removeFrom(groups, groupKey(event.fish), event.fish.count, `${path}.fish`);
+      removeFrom(groups, event.fish, event.fish.count, `${path}.fish`);
     } else if (event.type === 'remove-fish') {
-      removeFrom(groups, groupKey(event), event.count, path);
+      removeFrom(groups, event, event.count, path);
     }
     bp.fishMassG = totalMass(groups);
   }

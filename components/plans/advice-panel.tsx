@@ -11,6 +11,7 @@ import { plainNumber } from '@/shared/forecast-view';
 import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { planOutcomeSchema } from '@/simulation/advice/schemas';
+import { crossingShare, FILTER_BACTERIA_MEANING } from '@/simulation/advice/explain';
 import { AppText, Heading } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
@@ -26,7 +27,7 @@ const TABS: { key: AdviceTab; label: string }[] = [
   { key: 'removal', label: 'Rehoming' },
   { key: 'rescue', label: 'Rescue' },
   { key: 'calibration', label: 'Fit to my tests' },
-  { key: 'capacity-test', label: 'Capacity test' },
+  { key: 'capacity-test', label: 'Filter test' },
 ];
 
 export interface AdvicePanelProps {
@@ -73,7 +74,7 @@ function OutcomeFigures({ title, outcome, labels, testID }: { title: string; out
       <AppText tone={edge.safe ? 'okText' : 'dangerText'}>{edge.safe ? 'Stays under the limits' : 'Goes over a limit'}</AppText>
       {worst ? <AppText variant="caption">{`Highest: ${plainNumber(worst.peakRatio * 100)} % of the ${labels[worst.key] ?? worst.key} limit, day ${Math.round(worst.peakDay)}`}</AppText> : null}
       <AppText variant="caption">{`Days over a limit: ${plainNumber(over)}`}</AppText>
-      <AppText variant="caption" tone="textMuted">{`${outcome.membersCrossing} of ${outcome.members} plausible forecasts cross a limit`}</AppText>
+      <AppText variant="caption" tone="textMuted">{crossingShare(outcome.membersCrossing, outcome.members)}</AppText>
     </View>
   );
 }
@@ -240,8 +241,8 @@ function CalibrationAdvice({ tank }: AdvicePanelProps) {
       {data ? (
         <View testID="advice-calibration-result" style={{ gap: space.sm }}>
           <Heading level={3}>{`Fit: ${data.quality.verdict} (${data.readingsUsed} tests)`}</Heading>
-          <AppText>{`Ammonia-eating capacity now: about ${plainNumber(data.capacity.presentAoMgNPerDay)} mg N a day`}</AppText>
-          <AppText>{`Nitrite-eating capacity now: about ${plainNumber(data.capacity.presentNoMgNPerDay)} mg N a day`}</AppText>
+          <AppText>{`Ammonia your filter can clear now: about ${plainNumber(data.capacity.presentAoMgNPerDay)} mg N a day`}</AppText>
+          <AppText>{`Nitrite your filter can clear now: about ${plainNumber(data.capacity.presentNoMgNPerDay)} mg N a day`}</AppText>
           <Words lines={data.explanation} />
           <CautionsList extra={data.cautions} />
         </View>
@@ -256,8 +257,8 @@ function CapacityTest({ tank }: AdvicePanelProps) {
   const data = test.data;
   return (
     <Section testID="advice-capacity-test">
-      <AppText>No test history? A guided test measures how much ammonia the biofilter clears in a day.</AppText>
-      <Button label="Show the test" busy={test.isPending} busyLabel="Preparing…" onPress={() => test.mutate({})} testID="advice-capacity-run" />
+      <AppText>No test history? The filter test: dose a measured pinch of ammonia, test the water four times over a day, and see how much ammonia your filter clears in a day.</AppText>
+      <Button label="Show the filter test" busy={test.isPending} busyLabel="Preparing…" onPress={() => test.mutate({})} testID="advice-capacity-run" />
       {test.isError ? <Banner tone="danger" title="Could not prepare the test" message={errorText(test.error)} /> : null}
       {data ? (
         <View testID="advice-capacity-result" style={{ gap: space.sm }}>
@@ -281,6 +282,7 @@ export function AdvicePanel(props: AdvicePanelProps) {
   return (
     <View testID="advice-panel" style={{ gap: space.md }}>
       <Heading level={2}>Advice</Heading>
+      <AppText variant="caption" tone="textMuted" testID="advice-filter-bacteria">{FILTER_BACTERIA_MEANING}</AppText>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }} accessibilityRole="tablist">
         {TABS.map((t) => (
           <Pressable

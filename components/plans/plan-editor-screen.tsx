@@ -13,6 +13,7 @@ import { useLayoutSize } from '@/hooks/use-breakpoint';
 import { useTheme } from '@/hooks/use-theme';
 import { applySchedule, useDraftStore } from '@/lib/draft-store';
 import { isApiRequestError } from '@/lib/api-client';
+import { placedMessages } from '@/lib/form-errors';
 import { basisWords } from '@/lib/units-format';
 import { Screen } from '@/components/ui/screen';
 import { Card } from '@/components/ui/card';
@@ -185,7 +186,7 @@ function Editor({ planId, tank }: { planId: string; tank: TankDetail }) {
       <Card testID="plan-forecast">
         <Heading level={2}>Forecast</Heading>
         {live.fields && !shownFromServer ? (
-          <Banner tone="watch" title="The forecast cannot run yet" message={Object.entries(live.fields).map(([k, v]) => `${k}: ${v}`).join(' ')} testID="forecast-refused" />
+          <Banner tone="watch" title="The forecast cannot run yet" message={placedMessages(live.fields)} testID="forecast-refused" />
         ) : null}
         {server.isError && !dirty ? <Banner tone="watch" title="No saved forecast" message={server.error.message} testID="forecast-server-error" /> : null}
         {view ? (

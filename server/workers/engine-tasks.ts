@@ -72,7 +72,7 @@ function run(task: EngineTask): unknown {
       const ensemble = runEnsemble(scenario, { members: FORECAST_BAND_MEMBERS }, { horizonDays: central.series.days.at(-1) });
       return {
         forecast: forecastView(central, ensemble.band, ensemble.forecasts.length),
-        explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED)],
+        explanation: [bandExplanation(ensemble.forecasts.length)],
       };
     }
     case 'forecast-series': {
@@ -108,7 +108,7 @@ function run(task: EngineTask): unknown {
         band: result.band,
         members: result.forecasts.length,
         failed: result.failed.length,
-        explanation: [bandExplanation(result.forecasts.length, seed)],
+        explanation: [bandExplanation(result.forecasts.length)],
         cautions: [...ESTIMATE_CAUTIONS],
       };
     }

@@ -25,10 +25,11 @@
  * pace (the highest peak ratio).
  */
 import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
+import { fishGroupName } from '../catalogue';
 import { createForecastSession, forecastParsed, type ForecastSeries, type ForecastSession, type ForecastState } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { bandExplanation, memberOptions } from './ensemble';
-import { describeLimit, describeOutcome, limitByKey, whyLimitMatters } from './explain';
+import { describeLimit, describeOutcome, limitByKey, whyLimitMatters, WORST_TENTH } from './explain';
 import { checkAgainstEnsemble, createJudge, ensembleForecasts, judgementOf, judgeSeries, type Judgement, type UpperEdgeJudge } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { truncateEvents, withEvents } from './scenario-edit';
@@ -292,7 +293,7 @@ export function fastestSafeSchedule(request: AdditionRequest): AdditionAdvice {
   const searchDays = request.searchDays ?? 90;
   const lastDay = Math.min(c.latestFinishDay ?? searchDays, searchDays);
   const days = possibleDays(c, lastDay);
-  if (days.length === 0) throw new RangeError('no possible day for a batch between firstDay and latestFinishDay');
+  if (days.length === 0) throw new RangeError('There is no possible day for a batch between the first day allowed and the day it must be finished by.');
   // The reference (all at once) is ranked over two settling periods; plans finishing later are
   // compared over a longer horizon at the end.
   const referenceHorizon = days[0] + 2 * SETTLE_DAYS;
@@ -343,7 +344,7 @@ export function fastestSafeSchedule(request: AdditionRequest): AdditionAdvice {
   const bindingKey: LimitKey = result?.paceLimit ?? allAtOnce.upperEdge.binding;
   const binding = limitByKey(ctx.limits, bindingKey);
   const explanation = explainAddition(status, fish, batches, allAtOnce, staged, binding, ctx.limits, c, minBatch);
-  explanation.push(bandExplanation(judge.ensemble.forecasts.length, ctx.seed));
+  explanation.push(bandExplanation(judge.ensemble.forecasts.length));
   return {
     status,
     batches,
@@ -370,7 +371,7 @@ function explainAddition(
   c: AdditionConstraints & { firstDay: number },
   minBatch: number,
 ): string[] {
-  const name = fish.name ?? fish.species ?? 'fish';
+  const name = fishGroupName(fish);
   const out: string[] = [];
   out.push(describeOutcome(allAtOnce, limits, `All ${fish.count} ${name} at once`));
   if (status === 'all-at-once-is-safe') {
@@ -381,8 +382,8 @@ function explainAddition(
     out.push(describeOutcome(staged, limits, 'With this schedule'));
     out.push(
       `Why this schedule: each batch goes in on the earliest day at which the forecast — judged on the band's upper edge, ` +
-        `not its middle — stays under every limit; a day earlier for any batch would cross the ${binding.label} limit on ` +
-        `the pessimistic forecasts. Between batches the nitrifiers grow into the new load.`,
+        `not its middle — stays under every limit; a day earlier for any batch would take the ${binding.label} over its limit in ` +
+        `${WORST_TENTH}. Between batches the filter bacteria grow to match the new fish.`,
     );
     out.push(`The limit that sets the pace is the ${describeLimit(binding)}. ${whyLimitMatters(binding.key)}`);
   } else {

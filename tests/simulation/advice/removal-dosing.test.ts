@@ -3,7 +3,7 @@ import { parseScenario } from '../../../simulation/scenario';
 import { supplementaryDosing } from '../../../simulation/advice/removal-dosing';
 import { removalResponseSchema } from '../../../simulation/advice/schemas';
 import { forecastParsed } from '../../../simulation/forecast';
-import { tank } from './fixtures';
+import { DEVELOPER_WORDS, tank } from './fixtures';
 
 const scenario = parseScenario({ tank, start: { kind: 'mature' }, fish: [{ species: 'platy', count: 30 }], feeding: { mode: 'grams', gramsPerDay: 1.2 } });
 
@@ -27,6 +27,11 @@ describe('supplementaryDosing: a tank emptied on day 0 and restocked on day 28 (
     // 10 % w/w NH3 at 0.96 g/mL (engine default, CRC Handbook, recalled): 96 mg NH3/mL × 14.007/17.031 mg N/mg NH3.
     const mgNPerMl = 96 * (14.007 / 17.031);
     expect(advice.dose.ammoniaSolutionMlPerDay).toBeCloseTo((advice.dose.mgNPerLPerDay * 200) / mgNPerMl, 10);
+  });
+
+  it('explains itself in the keeper\'s words: filter bacteria, common names, no model jargon (issue 15)', () => {
+    for (const line of advice.explanation) expect(line).not.toMatch(DEVELOPER_WORDS);
+    expect(advice.explanation.join(' ')).toMatch(/filter bacteria/);
   });
 
   it('cuts grams-per-day feeding with the fish (model.md §4) and says why', () => {
