@@ -296,7 +296,7 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
   const presentAo = sum('ao', last);
   const calibratedScenario = scaledScenario(scenario, base, v.ao, v.no);
   const explanation = [
-    `Fitted to ${obs.length} readings: at the last reading your filter bacteria could clear about ${formatValue(presentAo)} mg of ammonia-nitrogen a day (${formatValue((presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N)} mg of ammonia) and about ${formatValue(sum('no', last))} mg of nitrite-nitrogen a day.`,
+    `Fitted to ${obs.length} ammonia and nitrite results: at the last reading your filter bacteria could clear about ${formatValue(presentAo)} mg of ammonia-nitrogen a day (${formatValue((presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N)} mg of ammonia) and about ${formatValue(sum('no', last))} mg of nitrite-nitrogen a day.`,
     `On average the forecast is ${formatValue(rmseKitSteps)} shades of your kit's colour chart away from your readings. ` +
       (verdict === 'poor'
         ? 'That is a poor fit: your readings contradict the model as set up — check the tank settings (volume, filter, fish, events), the kit\'s basis (as N or as the ion) and the dates.'

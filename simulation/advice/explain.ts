@@ -45,7 +45,7 @@ export function describeOutcome(o: PlanOutcome, limits: readonly AppliedLimit[],
   const l = limitByKey(limits, v.binding);
   const lv = v.limits.find((x) => x.key === v.binding)!;
   const share = crossingShare(o.membersCrossing, o.members);
-  const closest = `${l.label} comes closest: 9 in 10 forecasts peak below ${formatValue(lv.peakValue)} ${l.unit} (limit ${formatValue(l.value)}), around day ${formatValue(lv.peakDay)}`;
+  const closest = `${l.label.charAt(0).toUpperCase()}${l.label.slice(1)} comes closest: 9 in 10 forecasts peak below ${formatValue(lv.peakValue)} ${l.unit} (limit ${formatValue(l.value)}), around day ${formatValue(lv.peakDay)}`;
   return o.upperEdge.safe
     ? `${what}: ${share} — within the 1 in 10 allowed. ${closest}.`
     : `${what}: ${share} — more than the 1 in 10 allowed. ${closest}.`;
