@@ -50,3 +50,19 @@ export function requestErrorLine(e: unknown): string {
   if (e instanceof ApiRequestError) return Object.values(e.fields)[0] ?? e.message;
   return 'Something went wrong. Try again.';
 }
+
+const PLACES: Record<string, string> = { events: 'Event', livestock: 'Fish', fish: 'Fish' };
+
+/**
+ * A refusal's messages in the keeper's words, each led by where it sits when that is a numbered
+ * item ("Event 2: …"), never by the request path (`events.1.fish.lengthCm`).
+ */
+export function placedMessages(fields: Record<string, string>): string {
+  return Object.entries(fields)
+    .map(([path, message]) => {
+      const [head, index] = path.split('.');
+      const place = PLACES[head];
+      return place && /^\d+$/.test(index ?? '') ? `${place} ${Number(index) + 1}: ${message}` : message;
+    })
+    .join(' ');
+}

@@ -55,7 +55,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
     },
     steps: [
       { title: 'The tank today', body: 'Six neon tetras in 100 L. The biofilter has grown to the waste six small fish make, and no more.' },
-      { title: 'The purchase', body: 'Thirty cherry barbs arrive. The waste grows several times over in a day; the ammonia-eating nitrifiers need days to multiply, and the nitrite-eating ones lag behind them.' },
+      { title: 'The purchase', body: 'Thirty cherry barbs arrive. The waste grows several times over in a day; the filter bacteria that clear ammonia need days to multiply, and the ones that clear nitrite lag behind them.' },
       { title: 'Your guess', body: 'Drag the marker to the day and height where you think nitrite will peak.' },
       { title: 'What staging does', body: 'Adding ten a week lets each population catch up before the next batch. Compare the two peaks, and remember: your water tests decide, not the forecast.' },
     ],
@@ -79,7 +79,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
       ],
     },
     steps: [
-      { title: 'Less food for the biofilter', body: 'With half the fish gone, the nitrifiers slowly shrink toward the smaller load: little in the first days, more after a few weeks.' },
+      { title: 'Less food for the biofilter', body: 'With half the fish gone, the filter bacteria slowly shrink toward the smaller load: little in the first days, more after a few weeks.' },
       { title: 'The restock', body: 'On day 30 thirty platies arrive. The biofilter is now sized for twenty fish, not fifty, so ammonia shows on a test kit for a few days.' },
       { title: 'Your guess', body: 'The nitrite eaters shrank less than the ammonia eaters had to grow. Where will nitrite peak after the restock? Drag the marker.' },
       { title: 'The lesson', body: 'Rehome to another keeper or a shop, never into the wild (follow your local rules). To keep the capacity, feed the tank ammonia while it is lightly stocked.' },
@@ -131,7 +131,7 @@ export const DEMO_LESSONS: readonly DemoLesson[] = [
       events: [{ type: 'filter-clean', day: 3, zoneId: 'filter', action: 'rinse', shareLost: 0.8 }, ...weeklyChanges([10, 17, 24])],
     },
     steps: [
-      { title: 'Most of the biofilter lives in the filter', body: 'The sponge holds most of the nitrifiers; glass and decor hold the rest.' },
+      { title: 'Most of the biofilter lives in the filter', body: 'The sponge holds most of the filter bacteria; glass and decor hold the rest.' },
       { title: 'Chlorine and a hard squeeze', body: 'Rinsing under chlorinated tap water kills most of them (here: four in five). The fish keep making the same waste.' },
       { title: 'Your guess', body: 'Drag the marker to where you think nitrite peaks.' },
       { title: 'Doing it gently', body: 'Squeeze the sponge in a bucket of old tank water instead, and clean filter and gravel on different weeks.' },

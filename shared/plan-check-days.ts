@@ -79,7 +79,7 @@ function checksFor(e: ScenarioEvent): [number, string][] {
       const what = e.type === 'medication' ? 'medication' : 'aeration loss';
       const out: [number, string][] = [];
       const span = Math.min(Math.ceil(e.durationDays), 14);
-      for (let k = 1; k <= span; k++) out.push([e.day + k, `during the ${what} from day ${e.day}: nitrifiers may slow`]);
+      for (let k = 1; k <= span; k++) out.push([e.day + k, `during the ${what} from day ${e.day}: filter bacteria may slow`]);
       out.push([e.day + Math.ceil(e.durationDays) + 2, `after the ${what} ends`]);
       return out;
     }

@@ -97,4 +97,11 @@ export function findSpecies(id: string): CatalogueEntry | undefined {
   return BY_ID.get(id);
 }
 
+/** What the engine's sentences call a group of fish: its common name, its own name, never a catalogue id. */
+export function fishGroupName(f: { species?: string; name?: string }): string {
+  if (f.name?.trim()) return f.name.trim();
+  if (f.species) return findSpecies(f.species)?.commonName ?? 'fish';
+  return 'fish';
+}
+
 export const SPECIES_IDS: readonly string[] = CATALOGUE.map((e) => e.id);

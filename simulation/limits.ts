@@ -91,7 +91,8 @@ function defaultLimits(c: LimitConditions, choices: LimitChoices = {}): TankLimi
       value: NITRITE_PRACTICE_LIMIT_MG_N,
       unit: 'mg N/L',
       basis: 'culture practice: keep nitrite below 0.1 mg/L',
-      source: 'Boyd, Global Seafood Alliance (basis "as N" assumed)',
+      // [unconfirmed] the source gives 0.1 mg/L without saying as N or as the ion; read as N (the stricter reading, ~3.3× lower as the ion).
+      source: 'Boyd, Global Seafood Alliance',
     };
   }
   return {

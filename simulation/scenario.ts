@@ -106,11 +106,11 @@ export const tankSchema = z
   .superRefine((t, ctx) => {
     const seen = new Set<string>();
     t.zones.forEach((zone, i) => {
-      if (seen.has(zone.id)) ctx.addIssue({ code: 'custom', message: `Zone id "${zone.id}" is used twice.`, path: ['zones', i, 'id'] });
+      if (seen.has(zone.id)) ctx.addIssue({ code: 'custom', message: `The surface "${zone.id}" is listed twice.`, path: ['zones', i, 'id'] });
       seen.add(zone.id);
     });
     if (t.phModel === 'carbonate' && !(t.khDegrees !== undefined && t.khDegrees > 0)) {
-      ctx.addIssue({ code: 'custom', message: 'The carbonate pH model needs khDegrees above 0.', path: ['khDegrees'] });
+      ctx.addIssue({ code: 'custom', message: 'Letting the pH follow the carbonate hardness needs a KH above 0.', path: ['khDegrees'] });
     }
   });
 
@@ -145,7 +145,7 @@ export const fishGroupSchema = z
   })
   .refine((f) => f.species !== undefined || f.name !== undefined, { message: 'Choose a species or name your own fish.', path: ['species'] })
   .refine((f) => f.species !== undefined || f.lengthCm !== undefined || f.massG !== undefined, {
-    message: 'A fish not in the catalogue needs its length or its mass.',
+    message: 'A fish that is not in the species list needs its length (or its weight).',
     path: ['lengthCm'],
   });
 
@@ -353,12 +353,12 @@ export const scenarioSchema = z
     }
     if (s.start.kind === 'explicit') {
       s.start.capacities.forEach((c, i) => {
-        if (!ids.has(c.zoneId)) ctx.addIssue({ code: 'custom', message: `No zone "${c.zoneId}".`, path: ['start', 'capacities', i, 'zoneId'] });
+        if (!ids.has(c.zoneId)) ctx.addIssue({ code: 'custom', message: `This tank has no surface called "${c.zoneId}".`, path: ['start', 'capacities', i, 'zoneId'] });
       });
     }
     s.events.forEach((e, i) => {
       if (e.type === 'filter-clean' && !ids.has(e.zoneId)) {
-        ctx.addIssue({ code: 'custom', message: `No zone "${e.zoneId}" in this tank.`, path: ['events', i, 'zoneId'] });
+        ctx.addIssue({ code: 'custom', message: `This tank has no "${e.zoneId}" to clean (its filter bacteria live on: ${[...ids].join(', ')}).`, path: ['events', i, 'zoneId'] });
       }
       if (s.horizonDays !== undefined && e.day > s.horizonDays) {
         ctx.addIssue({ code: 'custom', message: `Day ${e.day} is after the forecast horizon (${s.horizonDays}).`, path: ['events', i, 'day'] });

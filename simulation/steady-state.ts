@@ -13,6 +13,7 @@
  * best-placed zone most — instead of one zone holding all.
  */
 import { zeros } from './arrays';
+import { formatFigure } from './format-number';
 import type { Model } from './model';
 
 export interface SteadyState {
@@ -35,7 +36,7 @@ export interface SteadyState {
 export class LoadTooHighError extends Error {
   constructor(readonly loadMgNPerDay: number, readonly maxMgNPerDay: number) {
     super(
-      `These fish put about ${loadMgNPerDay.toPrecision(3)} mg of ammonia-nitrogen a day into the water; the tank's filter and surfaces can clear about ${maxMgNPerDay.toPrecision(2)} at most, even fully grown. Keep fewer fish or give the filter more media.`,
+      `The fish and their food would put about ${formatFigure(loadMgNPerDay)} mg N of ammonia a day into the water, more than the filter bacteria this tank has room for can ever clear (about ${formatFigure(maxMgNPerDay)} mg N a day). Fewer fish, less food or more filter would help.`,
     );
     this.name = 'LoadTooHighError';
   }

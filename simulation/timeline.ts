@@ -7,7 +7,7 @@
  */
 import { ScenarioError, type AmmoniaDoseEvent, type DoseAmount, type FishGroup, type Scenario, type ScenarioEvent } from './scenario';
 import { fishMassG } from './bioload';
-import { findSpecies } from './catalogue';
+import { findSpecies, fishGroupName } from './catalogue';
 import { FishLedger, fishKey } from './fish-ledger';
 import { absurdStockingMessage, stockingLevel } from './stocking';
 import { ammoniaSolutionToMgNPerL, ammoniumChlorideToMgNPerL } from './dosing';
@@ -94,7 +94,7 @@ export function doseParts(event: AmmoniaDoseEvent, horizonDays: number): DosePar
 
 function massOf(f: FishGroup, path: string, b: number): number {
   if (f.species !== undefined && !findSpecies(f.species)) {
-    throw new ScenarioError({ [`${path}.species`]: `Unknown species "${f.species}"; choose one from the catalogue, or name your own fish and give its length.` });
+    throw new ScenarioError({ [`${path}.species`]: `"${f.species}" is not in the species list: pick a species from the list, or give the fish a name of your own and its length.` });
   }
   return fishMassG(f, b);
 }
@@ -103,7 +103,7 @@ function removeFrom(ledger: FishLedger, f: { species?: string; name?: string; co
   const key = fishKey(f);
   const available = ledger.available(key);
   if (available < f.count) {
-    throw new ScenarioError({ [`${path}.count`]: `Only ${available} of "${key}" in the tank at that time; cannot take out ${f.count}.` });
+    throw new ScenarioError({ [`${path}.count`]: `Only ${available} ${fishGroupName(f)} in the tank at that time; cannot take out ${f.count}.` });
   }
   ledger.remove(key, f.count);
 }
@@ -127,7 +127,7 @@ export function buildTimeline(scenario: Scenario, horizonDays: number, p: Parame
     }
     if (event.type === 'ammonia-dose') {
       if (event.repeatCount !== undefined && event.repeatEveryDays === undefined && event.repeatCount > 1) {
-        throw new ScenarioError({ [`events.${index}.repeatEveryDays`]: 'A repeated dose needs repeatEveryDays.' });
+        throw new ScenarioError({ [`events.${index}.repeatEveryDays`]: 'A repeated dose needs the number of days between doses.' });
       }
       // Pulses and flow starts are the dose's own 'event' actions; events.ts gives each its share.
       for (const part of doseParts(event, horizonDays)) {

@@ -19,7 +19,7 @@ const SUBSTRATE_LABELS = [
 
 const START_LABELS = [
   { value: 'mature', label: 'Settled', a11y: 'Settled: its biofilter matches the fish already in it' },
-  { value: 'new', label: 'Brand new', a11y: 'Brand new: hardly any nitrifiers yet' },
+  { value: 'new', label: 'Brand new', a11y: 'Brand new: hardly any filter bacteria yet' },
 ] as const;
 
 /** Count a species gets when picked; the mentor changes it in the row (common community group size). */
@@ -63,7 +63,7 @@ export function LessonTankFields({
           <TextField label="KH (°dKH)" testID="lesson-tank-kh" value={tank.kh} onChangeText={set('kh')} error={errors['tank.kh']} inputMode="decimal" placeholder="optional" />
         </View>
       </View>
-      <AppText variant="caption" tone="textMuted">Without KH the pH stays as typed; with it, the pH drifts down as the nitrifiers use the carbonate up.</AppText>
+      <AppText variant="caption" tone="textMuted">Without KH the pH stays as typed; with it, the pH drifts down as the filter bacteria use the carbonate up.</AppText>
       <ChoiceGroup label="Filter" testID="lesson-tank-filter" value={tank.filterKind} onChange={(v) => onChange({ filterKind: v }, 'tank.filterKind')} choices={FILTER_KIND_CHOICES} />
       <ChoiceGroup
         label="Substrate"
@@ -75,7 +75,7 @@ export function LessonTankFields({
       />
       <ChoiceGroup
         label="How the tank starts"
-        hint={tank.start === 'mature' ? 'Settled: its biofilter has grown to the fish listed below, and no more.' : 'Brand new: hardly any nitrifiers yet, whatever fish it holds.'}
+        hint={tank.start === 'mature' ? 'Settled: its biofilter has grown to the fish listed below, and no more.' : 'Brand new: hardly any filter bacteria yet, whatever fish it holds.'}
         testID="lesson-tank-start"
         value={tank.start}
         onChange={(v) => onChange({ start: v }, 'tank.start')}

@@ -6,6 +6,10 @@ import { useDraftStore, type AdviceTab } from '@/lib/draft-store';
 import { requestErrorLine } from '@/lib/form-errors';
 import { parseDecimal } from '@/lib/units-format';
 import { plainNumber } from '@/shared/forecast-view';
+import type { ScenarioEvent } from '@/simulation/scenario';
+import type { TankDetail } from '@/shared/schemas/tank';
+import type { planOutcomeSchema } from '@/simulation/advice/schemas';
+import { FILTER_BACTERIA_MEANING } from '@/simulation/advice/explain';
 import { AppText, Heading } from '@/components/ui/text';
 import { Button } from '@/components/ui/button';
 import { Banner } from '@/components/ui/banner';
@@ -24,7 +28,7 @@ const TABS: { key: AdviceTab; label: string }[] = [
   { key: 'removal', label: 'Rehoming' },
   { key: 'rescue', label: 'Rescue' },
   { key: 'calibration', label: 'Fit to my tests' },
-  { key: 'capacity-test', label: 'Capacity test' },
+  { key: 'capacity-test', label: 'Filter test' },
 ];
 
 type RemovalAnswer = NonNullable<ReturnType<typeof useRemovalAdvice>['data']>;
@@ -170,6 +174,7 @@ export function AdvicePanel(props: AdvicePanelProps) {
   return (
     <View testID="advice-panel" style={{ gap: space.md }}>
       <Heading level={2}>Advice</Heading>
+      <AppText variant="caption" tone="textMuted" testID="advice-filter-bacteria">{FILTER_BACTERIA_MEANING}</AppText>
       <View style={{ flexDirection: 'row', flexWrap: 'wrap', gap: space.xs }} accessibilityRole="tablist">
         {TABS.map((t) => (
           <Pressable

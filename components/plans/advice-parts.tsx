@@ -9,6 +9,7 @@ import type { ScenarioEvent } from '@/simulation/scenario';
 import type { TankDetail } from '@/shared/schemas/tank';
 import type { planOutcomeSchema } from '@/simulation/advice/schemas';
 import { AppText } from '@/components/ui/text';
+import { crossingShare } from '@/simulation/advice/explain';
 
 type Outcome = z.infer<typeof planOutcomeSchema>;
 
@@ -59,7 +60,7 @@ export function OutcomeFigures({ title, outcome, labels, testID }: { title: stri
       <AppText tone={edge.safe ? 'okText' : 'dangerText'}>{edge.safe ? 'Stays under the limits' : 'Goes over a limit'}</AppText>
       {worst ? <AppText variant="caption">{`Highest: ${plainNumber(worst.peakRatio * 100)} % of the ${labels[worst.key] ?? worst.key} limit, day ${Math.round(worst.peakDay)}`}</AppText> : null}
       <AppText variant="caption">{`Days over a limit: ${plainNumber(over)}`}</AppText>
-      <AppText variant="caption" tone="textMuted">{`${outcome.membersCrossing} of ${outcome.members} plausible forecasts cross a limit`}</AppText>
+      <AppText variant="caption" tone="textMuted">{crossingShare(outcome.membersCrossing, outcome.members)}</AppText>
     </View>
   );
 }

@@ -114,7 +114,7 @@ export function TankFormFields({
           <TextField label="Light (hours a day)" testID={id('light')} value={values.lightHours} onChangeText={set('lightHours')} error={errors.lightHours} placeholder={`${TANK_DEFAULTS.lightHoursPerDay} (default)`} inputMode="decimal" />
           <TextField
             label="Usual water change (%)"
-            hint="Use 0 if you do none. Water changes dilute nitrate and restore the carbonate hardness nitrifiers use up."
+            hint="Use 0 if you do none. Water changes dilute nitrate and bring back the carbonate hardness (KH) that filter bacteria use up."
             testID={id('water-change-percent')}
             value={values.waterChangePercent}
             onChangeText={set('waterChangePercent')}

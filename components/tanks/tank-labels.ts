@@ -85,7 +85,7 @@ export function setupLines(setup: TankSetup): string[] {
       ? `Water change: ${wc.percent} % every ${wc.everyDays === 1 ? 'day' : `${wc.everyDays} days`}${setup.routineWaterChange ? '' : ' (assumed)'}`
       : 'No routine water changes',
   );
-  if (setup.zones?.length) lines.push(`${setup.zones.length} surface ${setup.zones.length === 1 ? 'zone' : 'zones'} set by hand`);
+  if (setup.zones?.length) lines.push(`Surfaces for filter bacteria: ${setup.zones.length} set by hand`);
   return lines;
 }
 

@@ -52,7 +52,7 @@ export async function runEngine<T>(task: EngineTask, caller?: EngineCaller): Pro
   if (result.ok) return { value: result.value as T, ms: result.ms };
   if (result.reason === 'scenario') throw validationFailed(result.fields);
   if (result.reason === 'unsolvable') {
-    throw unprocessable('The forecast could not be worked out for these values (the solver hit its step limit). Check for extreme numbers, or shorten the plan.');
+    throw unprocessable('The forecast could not be worked out for these values: the sums would not settle. Check for extreme numbers, or shorten the plan.');
   }
   throw badRequest(result.message, { _: result.message });
 }

@@ -83,7 +83,7 @@ function run(task: EngineTask): unknown {
         : null;
       return {
         forecast: forecastView(central, ensemble.band, ensemble.forecasts.length),
-        explanation: [bandExplanation(ensemble.forecasts.length, DEFAULT_SEED), ...(fitBand ? [describeBandChange(fitBand.tanMgN, fitBand.no2MgN)] : [])],
+        explanation: [bandExplanation(ensemble.forecasts.length), ...(fitBand ? [describeBandChange(fitBand.tanMgN, fitBand.no2MgN)] : [])],
         fitBand,
       };
     }
@@ -120,7 +120,7 @@ function run(task: EngineTask): unknown {
         band: result.band,
         members: result.forecasts.length,
         failed: result.failed.length,
-        explanation: [bandExplanation(result.forecasts.length, seed)],
+        explanation: [bandExplanation(result.forecasts.length)],
         cautions: [...ESTIMATE_CAUTIONS],
       };
     }

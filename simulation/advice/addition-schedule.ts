@@ -66,7 +66,7 @@ export function fastestSafeSchedule(request: AdditionRequest): AdditionAdvice {
     ? scheduleSummary(fish, batches, startDate)
     : `No safe schedule for ${fish.count} ${fishName(fish)} from ${dayWords(days[0], startDate)} within ${found.searchDays} days.`;
   const explanation = explainAddition(status, fish, allAtOnce, staged, binding, ctx.limits, blocker, suggestions, request.constraints ?? {});
-  explanation.push(bandExplanation(judge.ensemble.forecasts.length, ctx.seed));
+  explanation.push(bandExplanation(judge.ensemble.forecasts.length));
   const cautions = [...ESTIMATE_CAUTIONS, 'Test total ammonia and nitrite on each batch day before adding fish, and two and four days after each batch.'];
   if (suggestions.some((s) => s.kind === 'water-changes')) cautions.push(...WATER_CHANGE_CAUTIONS);
   return {
@@ -112,7 +112,7 @@ function explainAddition(
     out.push(
       `Why this schedule: each batch goes in on the earliest day at which the forecast — judged on the band's upper edge, ` +
         `not its middle — stays under every limit; a day earlier for any batch would cross the ${binding.label} limit on ` +
-        `the pessimistic forecasts. Between batches the nitrifiers grow into the new load.`,
+        `the worst 1 in 10 forecasts. Between batches the filter bacteria grow into the new load.`,
     );
     out.push(`The limit that sets the pace is the ${describeLimit(binding)}. ${whyLimitMatters(binding.key)}`);
   } else if (blocker) {
@@ -120,7 +120,7 @@ function explainAddition(
     if (c.latestFinishDay !== undefined) out.push(`You asked for the last batch by day ${c.latestFinishDay}.`);
     out.push(
       suggestions.length > 0
-        ? 'Each suggestion below was searched and checked the same way as a schedule, on the same plausible forecasts.'
+        ? 'Each suggestion below was searched and checked the same way as a schedule, on the same forecasts in the band.'
         : 'Nothing tried here (smaller batches, a later finish, more frequent water changes, fewer fish) keeps the forecast under the limits. If your own tests read well under the limits, fit the model to them ("Fit to my tests") and ask again: the forecast is only as good as what it knows of this tank. Otherwise add no fish for now.',
     );
     out.push(`The limit in the way is the ${describeLimit(binding)}. ${whyLimitMatters(binding.key)}`);

@@ -256,7 +256,7 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
       limit: limit.key,
       day,
       smallestBatch,
-      words: `Even once its nitrifiers have grown, this tank cannot carry ${fish.count} more ${name}: ${carry} However slowly they go in, ${limit.label} would climb over its limit${when}.`,
+      words: `Even once its filter bacteria have grown, this tank cannot carry ${fish.count} more ${name}: ${carry} However slowly they go in, ${limit.label} would climb over its limit${when}.`,
     };
   }
   if (!alone.safe) {
@@ -273,6 +273,6 @@ export function additionBlocker(query: ScheduleQuery, found: ScheduleSearch, sta
     limit: limit.key,
     day,
     smallestBatch,
-    words: `Batches of ${smallestBatch} ${name} fit one at a time, but the nitrifiers cannot grow into all ${fish.count} by ${dayWords(days[days.length - 1], startDate)}: ${limit.label} is the limit in the way (all at once, more than 1 in 10 forecasts cross a limit${when}).${headroom}`,
+    words: `Batches of ${smallestBatch} ${name} fit one at a time, but the filter bacteria cannot grow into all ${fish.count} by ${dayWords(days[days.length - 1], startDate)}: ${limit.label} is the limit in the way (all at once, more than 1 in 10 forecasts cross a limit${when}).${headroom}`,
   };
 }

@@ -169,7 +169,10 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
     if (r.tanMgN !== undefined) obs.push({ day: r.day, species: 'tan', value: r.tanMgN, kit: kits.tan });
     if (r.no2MgN !== undefined) obs.push({ day: r.day, species: 'no2', value: r.no2MgN, kit: kits.no2 });
   }
-  if (obs.length < fit.length + 1) throw new RangeError(`need at least ${fit.length + 1} readings to fit ${fit.length} unknowns, got ${obs.length}`);
+  // Keeper-facing: the API answers it as the refusal's message.
+  if (obs.length < fit.length + 1) {
+    throw new RangeError(`Fitting needs at least ${fit.length + 1} ammonia or nitrite results (a test's ammonia and nitrite count apart); there are ${obs.length}. Log a few more tests first.`);
+  }
   const lastDay = Math.max(...obs.map((o) => o.day));
   const horizon = Math.max(lastDay, STEP_DAYS * 2);
   const base = baseState(scenario);
@@ -298,8 +301,8 @@ export function calibrate(request: CalibrationRequest): CalibrationResult {
   const presentAo = sum('ao', last);
   const calibratedScenario = scaledScenario(scenario, base, v.ao, v.no);
   const explanation = [
-    `Fitted to ${obs.length} readings: your ammonia-eating nitrifiers could clear about ${formatValue(presentAo)} mg of ammonia-nitrogen a day (${formatValue((presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N)} mg of ammonia) at the last reading, the nitrite-eating ones about ${formatValue(sum('no', last))} mg a day.`,
-    `The model sits on average ${formatValue(rmseKitSteps)} colour steps from your readings. ` +
+    `Fitted to ${obs.length} ammonia and nitrite results: at the last reading your filter bacteria could clear about ${formatValue(presentAo)} mg of ammonia-nitrogen a day (${formatValue((presentAo * MOLAR_MASS.NH3) / MOLAR_MASS.N)} mg of ammonia) and about ${formatValue(sum('no', last))} mg of nitrite-nitrogen a day.`,
+    `On average the forecast is ${formatValue(rmseKitSteps)} shades of your kit's colour chart away from your readings. ` +
       (verdict === 'poor'
         ? 'That is a poor fit: your readings contradict the model as set up — check the tank settings (volume, filter, fish, events), the kit\'s basis (as N or as the ion) and the dates.'
         : verdict === 'fair'

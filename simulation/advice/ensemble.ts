@@ -133,7 +133,8 @@ export function runEnsemble(scenario: Scenario, spec: EnsembleSpec = {}, options
       failed.push({ index: m.index, message: (e as Error).message });
     }
   }
-  if (forecasts.length === 0) throw new RangeError(`every ensemble member failed: ${failed[0]?.message}`);
+  // Keeper-facing (the API answers it as the refusal's message); the first failure stays in `cause`.
+  if (forecasts.length === 0) throw new RangeError('No forecast could be worked out for these values. Check for extreme numbers, or shorten the plan.', { cause: failed[0]?.message });
   return { members: kept, forecasts, failed, band: bandOf(forecasts) };
 }
 
@@ -172,7 +173,9 @@ export function runConditionedEnsemble(
       }
     }
   }
-  if (forecasts.length === 0) throw new RangeError('no ensemble member is consistent with the tank as described');
+  if (forecasts.length === 0) throw new RangeError(
+      "As described, this tank's water would already be over a limit today, however its filter bacteria behave, so there is no safe start to judge a change from. Check the tank's details (tap-water ammonia, fish, filter) and today's water.",
+    );
   return { members, forecasts, failed, dropped, band: bandOf(forecasts) };
 }
 
@@ -198,12 +201,12 @@ function spareQuantiles(forecasts: readonly Forecast[]): EnsembleBand['spareTime
   return { p10: p10[0], p50: p50[0], p90: p90[0] };
 }
 
-/** Keeper-facing words for what the band means. */
-export function bandExplanation(membersRun: number, seed: number): string {
+/** Keeper-facing words for what the band means (the draws' seed stays in the answer, not in the words). */
+export function bandExplanation(membersRun: number): string {
   return (
-    `The shaded band comes from ${membersRun} forecasts, each with a different plausible set of the model's values ` +
-    `(growth speeds, decay, oxygen and ammonia affinities, temperature response, feeding) drawn evenly across their ` +
-    `published ranges (seed ${seed}). In 8 of 10 cases the water should sit inside it; the upper edge is where ` +
-    `only 1 in 10 forecasts goes higher. Your own test readings narrow it.`
+    `The shaded band comes from ${membersRun} forecasts. Nobody knows exactly how fast your filter bacteria grow and die back, ` +
+    `how they take to oxygen, ammonia and temperature, or how much food the fish really get, so each forecast takes ` +
+    `different values for these from the ranges measured in published studies. In 8 of 10 cases the water should sit ` +
+    `inside the band; at its upper edge only 1 in 10 forecasts goes higher. Your own test readings narrow it.`
   );
 }

@@ -17,6 +17,7 @@
  */
 import type { FishGroup, Scenario, ScenarioEvent } from '../scenario';
 import { fishMassG } from '../bioload';
+import { fishGroupName } from '../catalogue';
 import { ammoniaSolutionForDose, ammoniumChlorideForDose, type AmmoniaSolution } from '../dosing';
 import { steadyStateCapacity } from '../capacity';
 import { forecastParsed, type Forecast } from '../forecast';
@@ -100,7 +101,7 @@ function groupMass(groups: { species?: string; name?: string; count: number; len
 function removedGroups(scenario: Scenario, removals: RemovalRequest['removals']): FishGroup[] {
   return removals.map((r) => {
     const match = scenario.fish.find((f) => (r.species !== undefined ? f.species === r.species : f.name === r.name));
-    if (!match) throw new RangeError(`no fish "${r.species ?? r.name}" in the tank`);
+    if (!match) throw new RangeError(`This tank holds no ${fishGroupName(r)} to rehome.`);
     return { ...match, count: r.count };
   });
 }
@@ -277,7 +278,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
     f.mode === 'grams' ? `${formatValue(f.gramsPerDay)} g of food a day` : `${f.percentPerDay ?? DEFAULT_PARAMETERS.feedPercent} % of the fish's body mass a day`;
   const explanation: string[] = [];
   explanation.push(
-    `To take the restock on day ${restockDay} without a spike, the ammonia-eating nitrifiers should be able to clear about ${formatValue(target)} mg of ammonia-nitrogen a day by then — what this tank settles at with the restocked fish.`,
+    `To take the restock on day ${restockDay} without a spike, the filter bacteria should be able to clear about ${formatValue(target)} mg of ammonia-nitrogen a day by then — what this tank settles at with the restocked fish.`,
   );
   if (dose > 0) {
     const sol = doseAmounts.ammoniaSolutionMlPerDay !== null && request.solution ? ` or ${formatValue(doseAmounts.ammoniaSolutionMlPerDay)} mL of your ${request.solution.percentNH3} % ammonia solution` : '';
@@ -286,7 +287,7 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
     );
     explanation.push(delivery.reason);
   } else {
-    explanation.push('No supplementary dose is needed: the fish that stay keep the nitrifiers at the size the restock needs.');
+    explanation.push('No extra ammonia is needed: the fish that stay keep enough filter bacteria fed for the restock.');
   }
   if (feedingBefore.mode === 'grams') {
     explanation.push(
@@ -298,11 +299,11 @@ export function supplementaryDosing(request: RemovalRequest): RemovalAdvice {
     );
   }
   explanation.push(
-    `Capacity on the restock day (model at its default values): ${formatValue(capacityAt(forecastParsed(withPlan(dose, choice), capOpts), restockDay))} mg N/day with this advice, ${formatValue(capacityAt(forecastParsed(base, capOpts), restockDay))} mg N/day without it.`,
+    `Ammonia the filter bacteria can clear on the restock day (at the model's usual values): about ${formatValue(capacityAt(forecastParsed(withPlan(dose, choice), capOpts), restockDay))} mg N a day with this advice, ${formatValue(capacityAt(forecastParsed(base, capOpts), restockDay))} mg N a day without it.`,
   );
   explanation.push(describeOutcome(withAdvice, ctx.limits, 'With the advice'));
   explanation.push(describeOutcome(withoutAdvice, ctx.limits, 'Without it'));
-  explanation.push(bandExplanation(ensembleWith.forecasts.length, ctx.seed));
+  explanation.push(bandExplanation(ensembleWith.forecasts.length));
   return {
     targetCapacityMgNPerDay: target,
     capacityAtRestock: {

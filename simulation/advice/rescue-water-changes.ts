@@ -16,7 +16,7 @@ import { forecastParsed } from '../forecast';
 import { adviceContext, type AdviceSettings } from './advice-context';
 import { ESTIMATE_CAUTIONS, WATER_CHANGE_CAUTIONS } from './cautions';
 import { bandExplanation } from './ensemble';
-import { describeLimit, describeOutcome, limitByKey, whyLimitMatters } from './explain';
+import { describeLimit, describeOutcome, limitByKey, whyLimitMatters, WORST_TENTH } from './explain';
 import { checkAgainstEnsemble, createJudge, judgementOf, type Judgement, type UpperEdgeJudge } from './judge';
 import { planOutcome, type PlanOutcome } from './plan-outcome';
 import { withEvents } from './scenario-edit';
@@ -162,7 +162,7 @@ export function rescueWaterChanges(request: RescueRequest): RescueAdvice {
     );
     explanation.push(describeOutcome(withChanges, ctx.limits, 'With these changes'));
     explanation.push(
-      `Each change goes in on the morning of the day the forecast would cross, at the smallest size that holds it off; one change fewer, or any change ${formatValue(grid.step)} % smaller, lets the pessimistic forecasts cross. Your tap water brings ${formatValue(tap.tanMgN)} mg N/L ammonia and ${formatValue(tap.no3MgN)} mg N/L nitrate with each change, which the forecast includes.`,
+      `Each change goes in on the morning of the day the forecast would cross, at the smallest size that holds it off; one change fewer, or any change ${formatValue(grid.step)} % smaller, lets ${WORST_TENTH} cross. Your tap water brings ${formatValue(tap.tanMgN)} mg N/L ammonia and ${formatValue(tap.no3MgN)} mg N/L nitrate with each change, which the forecast includes.`,
     );
   } else if (status === 'cannot-rescue') {
     explanation.push(
@@ -172,7 +172,7 @@ export function rescueWaterChanges(request: RescueRequest): RescueAdvice {
     explanation.push('No water changes are needed: the forecast stays under the limits on the band\'s upper edge.');
   }
   explanation.push(`The limit at stake is the ${describeLimit(binding)}. ${whyLimitMatters(binding.key)}`);
-  explanation.push(bandExplanation(judge.ensemble.forecasts.length, ctx.seed));
+  explanation.push(bandExplanation(judge.ensemble.forecasts.length));
   return {
     status,
     changes: changes ?? [],

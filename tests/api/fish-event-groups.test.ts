@@ -41,7 +41,7 @@ describe('fish events with several groups', () => {
     const tank = await createTank(ctx.deps.dataSource, user.id);
     const bad = { ...twoKinds, fish: [twoKinds.fish[0], { name: 'Big red', count: 1 }] };
     const res = await c.post(`/api/tanks/${tank.id}/plans`, { name: 'Bad', startDate: '2026-04-01', events: [bad] }).expect(400);
-    expect(res.body.error.fields).toEqual({ 'events.0.fish.1.lengthCm': 'A fish not in the catalogue needs its length or its mass.' });
+    expect(res.body.error.fields).toEqual({ 'events.0.fish.1.lengthCm': 'A fish that is not in the species list needs its length (or its weight).' });
     expect(await ctx.deps.dataSource.getRepository(Plan).count()).toBe(0);
   });
 

@@ -76,7 +76,7 @@ describe('plan events with the species picker', () => {
         await page.getByTestId('event-submit').click();
         const lengthField = page.getByTestId('event-field-fish.0.lengthCm');
         await expect.poll(() => lengthField.getAttribute('aria-invalid')).toBe('true');
-        expect(await page.getByTestId('event-fish-0').innerText()).toContain('A fish not in the catalogue needs its length or its mass.');
+        expect(await page.getByTestId('event-fish-0').innerText()).toContain('A fish that is not in the species list needs its length (or its weight).');
         expect(await page.getByTestId('screen-plan').innerText()).not.toMatch(/events\.\d|fish\.\d|lengthCm/);
         await page.getByTestId('event-fish-0').evaluate((el) => el.scrollIntoView({ block: 'start' }));
         await screenshot(page, `plan-event-custom-fish-error-${size}`);

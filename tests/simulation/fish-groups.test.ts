@@ -32,7 +32,7 @@ describe('fish groups in one event', () => {
   it('names the field inside the group, whichever shape the group came in', () => {
     expect(errorsOf({ type: 'add-fish', day: 0, fish: { species: 'platy', count: 0 } })).toEqual({ 'fish.count': 'Count must be at least 1.' });
     expect(errorsOf({ type: 'add-fish', day: 0, fish: [{ species: 'platy', count: 2 }, { name: 'Big red', count: 1 }] })).toEqual({
-      'fish.1.lengthCm': 'A fish not in the catalogue needs its length or its mass.',
+      'fish.1.lengthCm': 'A fish that is not in the species list needs its length (or its weight).',
     });
     expect(errorsOf({ type: 'add-fish', day: 0, fish: [] })).toEqual({ fish: 'Name at least one kind of fish.' });
     expect(errorsOf({ type: 'add-fish', day: 0 })).toEqual({ fish: 'List the fish: each kind with its species or name and its count.' });
@@ -69,7 +69,7 @@ describe('fish groups in one event', () => {
       throw new Error('expected a refusal');
     } catch (e) {
       expect(e).toBeInstanceOf(ScenarioError);
-      expect((e as ScenarioError).fields).toEqual({ 'events.0.fish.1.count': 'Only 3 of "platy" in the tank at that time; cannot take out 4.' });
+      expect((e as ScenarioError).fields).toEqual({ 'events.0.fish.1.count': 'Only 3 Platy in the tank at that time; cannot take out 4.' });
     }
   });
 

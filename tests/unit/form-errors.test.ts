@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ApiRequestError } from '@/lib/api-client';
-import { formErrorsFromRequest, validateForm } from '@/lib/form-errors';
+import { formErrorsFromRequest, placedMessages, validateForm } from '@/lib/form-errors';
 import { signInSchema, signUpSchema } from '@/shared/schemas/auth';
 
 const apiError = (init: ConstructorParameters<typeof ApiRequestError>[0]) => new ApiRequestError(init);
@@ -51,5 +51,13 @@ describe('formErrorsFromRequest', () => {
 
   it('gives a generic banner for something that is not an API error', () => {
     expect(formErrorsFromRequest(new Error('boom'), ['email'])).toEqual({ fields: {}, banner: 'Something went wrong. Please try again.' });
+  });
+});
+
+describe('placedMessages', () => {
+  it('leads a numbered item\'s message with the item, counted from 1, never with the request path (issue 15)', () => {
+    const text = placedMessages({ 'events.0.fish.lengthCm': 'A fish that is not in the species list needs its length (or its weight).', 'livestock.2.lengthCm': 'Give its length.', horizonDays: 'Too long.' });
+    expect(text).toBe('Event 1: A fish that is not in the species list needs its length (or its weight). Fish 3: Give its length. Too long.');
+    expect(text).not.toMatch(/events\.|lengthCm/);
   });
 });

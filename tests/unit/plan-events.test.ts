@@ -85,7 +85,7 @@ describe('event fields', () => {
 
   it("asks for the length or mass of the keeper's own fish beside its length field", () => {
     const result = fieldsToEvent('add-fish', { day: '0', 'fish.0.name': 'Big red', 'fish.0.count': '2' });
-    expect(result).toEqual({ errors: { 'fish.0.lengthCm': 'A fish not in the catalogue needs its length or its mass.' } });
+    expect(result).toEqual({ errors: { 'fish.0.lengthCm': 'A fish that is not in the species list needs its length (or its weight).' } });
     expect(fieldsToEvent('add-fish', { day: '0', 'fish.0.name': 'Big red', 'fish.0.count': '2', 'fish.0.massG': '40' })).toEqual({
       event: { type: 'add-fish', day: 0, fish: [{ name: 'Big red', count: 2, massG: 40 }] },
     });

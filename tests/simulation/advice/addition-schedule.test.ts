@@ -5,7 +5,7 @@ import { runConditionedEnsemble } from '../../../simulation/advice/ensemble';
 import { settledTankAccepts } from '../../../simulation/advice/judge';
 import { additionResponseSchema } from '../../../simulation/advice/schemas';
 import { tankLimits } from '../../../simulation/advice/tank-limits';
-import { matureTank, p90, peakRatio, resimulate, type Member } from './fixtures';
+import { DEVELOPER_WORDS, matureTank, p90, peakRatio, resimulate, type Member } from './fixtures';
 
 const fish = { species: 'platy', count: 40 };
 
@@ -58,6 +58,13 @@ describe('fastestSafeSchedule (40 platies into a 200 L tank holding 10; common p
     expect(advice.explanation.join(' ')).toMatch(/earliest day/);
     expect(advice.binding.source.length).toBeGreaterThan(0);
     expect(advice.cautions.join(' ')).toMatch(/water tests decide/);
+  });
+
+  it('explains itself in the keeper\'s words: filter bacteria, the worst 1 in 10 forecasts, no seed (issue 15)', () => {
+    for (const line of advice.explanation) expect(line).not.toMatch(DEVELOPER_WORDS);
+    const text = advice.explanation.join(' ');
+    expect(text).toMatch(/the worst 1 in 10 forecasts\. Between batches the filter bacteria grow/);
+    expect(text).toMatch(/of the \d+ forecasts in the band cross a limit/);
   });
 });
 

@@ -5,6 +5,7 @@ import { roundToKit } from '../../../simulation/advice/kit-error';
 import { normalDraw, seededRandom } from '../../../simulation/advice/random';
 import { calibrationResponseSchema } from '../../../simulation/advice/schemas';
 import { forecastParsed } from '../../../simulation/forecast';
+import { DEVELOPER_WORDS } from './fixtures';
 
 // An invented 100 L tank cycled with 1 mg N/L of ammonia a day (the fishless start-up of MODEL.md §9.2).
 const scenario = parseScenario({
@@ -54,6 +55,9 @@ describe('calibrate (Levenberg–Marquardt on kit-rounded synthetic readings)', 
     expect(result.band.meanWidthTan.calibrated).toBeLessThan(result.band.meanWidthTan.prior);
     expect(result.band.meanWidthNo2.calibrated).toBeLessThan(result.band.meanWidthNo2.prior);
     expect(calibrationResponseSchema.safeParse(result).success).toBe(true);
+    // Its words (issue 15): filter bacteria and the kit's colour chart, not nitrifiers or "colour steps".
+    for (const line of result.explanation) expect(line).not.toMatch(DEVELOPER_WORDS);
+    expect(result.explanation.join(' ')).toMatch(/filter bacteria could clear about .* shades of your kit's colour chart/);
   }, 30_000);
 
   it('reports a poor fit when readings contradict the model (ammonia and nitrite flat at 8 mg/L while dosing)', () => {

@@ -4,6 +4,7 @@
  * (not the advisor's judge).
  */
 import { parseScenario, type Scenario } from '../../../simulation/scenario';
+import { SPECIES_IDS } from '../../../simulation/catalogue';
 import { epaAcuteTan, epaChronicTan } from '../../../simulation/chemistry';
 import { forecastParsed, type Forecast } from '../../../simulation/forecast';
 import { DEFAULT_PARAMETERS, type ParameterOverrides } from '../../../simulation/parameters';
@@ -66,3 +67,16 @@ export function p90(values: number[]): number {
   const lo = Math.floor(h);
   return sorted[lo] + (h - lo) * ((sorted[Math.min(lo + 1, sorted.length - 1)] ?? 0) - sorted[lo]);
 }
+
+/**
+ * Words that must not reach a keeper in an advisor's sentences: the model's own names (issue 15),
+ * a random seed, a request path, a catalogue id with its hyphen.
+ */
+export const DEVELOPER_WORDS = new RegExp(
+  [
+    'nitrifier', 'plausible', 'pessimistic', 'colour steps', 'capacity', '\\bzones?\\b', 'ensemble', '\\bseed\\b', 'solver',
+    '\\b[a-z]+\\.\\d+\\.[a-zA-Z]+', // a request path such as events.0.fish.lengthCm
+    ...SPECIES_IDS.filter((id) => id.includes('-')).map((id) => `\\b${id}\\b`),
+  ].join('|'),
+  'i',
+);

@@ -7,7 +7,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { AMMONIA_HANDLING_CAUTIONS, DOSING_WITH_FISH_CAUTIONS } from '../../../simulation/advice/cautions';
 import { expectClose } from '../helpers';
-import { tank } from './fixtures';
+import { DEVELOPER_WORDS, tank } from './fixtures';
 import { tankScenario } from '../../../shared/tank-scenario';
 
 const scenario = parseScenario({ tank, start: { kind: 'mature' }, fish: [{ species: 'platy', count: 30 }], feeding: { mode: 'grams', gramsPerDay: 1.2 } });
@@ -32,6 +32,11 @@ describe('supplementaryDosing: a tank emptied on day 0 and restocked on day 28 (
     // 10 % w/w NH3 at 0.96 g/mL (engine default, CRC Handbook, recalled): 96 mg NH3/mL × 14.007/17.031 mg N/mg NH3.
     const mgNPerMl = 96 * (14.007 / 17.031);
     expect(advice.dose.ammoniaSolutionMlPerDay).toBeCloseTo((advice.dose.mgNPerLPerDay * 200) / mgNPerMl, 10);
+  });
+
+  it('explains itself in the keeper\'s words: filter bacteria, common names, no model jargon (issue 15)', () => {
+    for (const line of advice.explanation) expect(line).not.toMatch(DEVELOPER_WORDS);
+    expect(advice.explanation.join(' ')).toMatch(/filter bacteria/);
   });
 
   it('cuts grams-per-day feeding with the fish (MODEL.md §6.2) and says why', () => {

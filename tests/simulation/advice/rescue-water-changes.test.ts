@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { rescueWaterChanges } from '../../../simulation/advice/rescue-water-changes';
 import { rescueResponseSchema } from '../../../simulation/advice/schemas';
-import { matureTank, peakRatio, resimulate } from './fixtures';
+import { DEVELOPER_WORDS, matureTank, peakRatio, resimulate } from './fixtures';
 
 const scenario = matureTank({ events: [{ type: 'add-fish', day: 2, fish: { species: 'platy', count: 40 } }], horizonDays: 40 });
 const withChanges = (cs: { day: number; percent: number }[]) => ({
@@ -13,6 +13,11 @@ describe('rescueWaterChanges: 40 platies added at once to a 200 L tank (invented
   const advice = rescueWaterChanges({ scenario });
   const worst = (cs: { day: number; percent: number }[]) =>
     Math.max(...advice.judgement.boundingDraws.map((m) => peakRatio(resimulate(withChanges(cs), m, 40))));
+
+  it('explains itself without model jargon: the worst 1 in 10 forecasts, not "pessimistic" ones (issue 15)', () => {
+    for (const line of advice.explanation) expect(line).not.toMatch(DEVELOPER_WORDS);
+    expect(advice.explanation.join(' ')).toMatch(/the worst 1 in 10 forecasts cross/);
+  });
 
   it('proposes water changes because the forecast crosses a limit', () => {
     expect(advice.status).toBe('rescued');
