@@ -25,8 +25,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a forecast starts from 
     await page.getByTestId('new-tank-volume').fill('120');
     await page.getByTestId('new-tank-submit').click();
     await page.getByTestId('tank-name').waitFor();
-    await page.getByTestId('livestock-search').fill('neon');
-    await page.getByTestId('species-neon-tetra').click();
+    await page.getByTestId('livestock-species-search').fill('neon');
+    await page.getByTestId('livestock-species-option-neon-tetra').click();
     await page.getByTestId('livestock-count').fill('10');
     await page.getByTestId('livestock-submit').click();
     await page.getByTestId('livestock-added').waitFor();
@@ -40,7 +40,8 @@ describe.each(Object.keys(VIEWPORTS) as ViewportName[])('a forecast starts from 
     await page.getByTestId('tank-start').scrollIntoViewIfNeeded();
     await screenshot(page, `tank-start-section-${size}`);
 
-    // A new plan on that tank, starting today.
+    // A new plan on that tank, starting today (the plans fold opens first).
+    await page.getByTestId('tank-plans-toggle').click();
     await page.getByTestId('tank-new-plan').click();
     await page.getByTestId('plan-new').waitFor();
     await page.getByTestId('plan-new-name').fill('After the high test');
