@@ -49,8 +49,9 @@ export function forecastView(f: Forecast, band: EnsembleBand | null = null, memb
       ? {
           times: round4(summary.spareCapacity.times),
           showsFirst: summary.spareCapacity.showsFirst,
-          low: band?.spareTimes ? round4(band.spareTimes.p10) : null,
-          high: band?.spareTimes ? round4(band.spareTimes.p90) : null,
+          // The range holds the forecast's own figure, and nothing below 1× (no room) is shown as less.
+          low: band?.spareTimes ? round4(Math.max(1, Math.min(band.spareTimes.p10, summary.spareCapacity.times))) : null,
+          high: band?.spareTimes ? round4(Math.max(1, band.spareTimes.p90, summary.spareCapacity.times)) : null,
         }
       : null,
   };
