@@ -9,7 +9,7 @@ import { Banner } from '@/components/ui/banner';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/text-field';
 import { ChoiceGroup } from '@/components/settings/choice-group';
-import { SpeciesChoices } from '@/components/tanks/species-choices';
+import { SpeciesPicker } from '@/components/tanks/species-picker';
 import { HISTORY_CHOICES, historyForm, historyFromForm, type HistoryForm } from '@/components/tanks/tank-history-model';
 
 const HINTS: Record<HistoryForm['kind'], string> = {
@@ -25,7 +25,6 @@ export function TankHistorySection({ tank }: { tank: TankDetail }) {
   const { space } = useTheme();
   const save = useUpdateTank(tank.id);
   const [form, setForm] = useState<HistoryForm>(() => historyForm(tank.history, new Date().toISOString().slice(0, 10)));
-  const [search, setSearch] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
   const set = (patch: Partial<HistoryForm>) => {
     setForm((f) => ({ ...f, ...patch }));
@@ -46,8 +45,14 @@ export function TankHistorySection({ tank }: { tank: TankDetail }) {
       {form.kind === 'emptied' ? (
         <View style={{ gap: space.sm }}>
           <TextField label="Filter mature until (date)" hint="The day the last fish left, e.g. 2026-12-01." testID="tank-history-until" value={form.matureUntil} onChangeText={(matureUntil) => set({ matureUntil })} error={errors.matureUntil} autoComplete="off" />
-          <TextField label="Fish it fed: search species" testID="tank-history-search" value={search} onChangeText={setSearch} error={errors.speciesId} autoComplete="off" />
-          <SpeciesChoices query={search} selectedId={form.speciesId} onSelect={(speciesId) => set({ speciesId })} max={5} testIDPrefix="history-species" />
+          <SpeciesPicker
+            label="Fish it fed"
+            value={{ speciesId: form.speciesId, customName: '' }}
+            onChange={(c) => set({ speciesId: c.speciesId })}
+            error={errors.speciesId}
+            allowCustom={false}
+            testID="tank-history-species"
+          />
           <TextField label="How many of them" testID="tank-history-count" value={form.count} onChangeText={(count) => set({ count })} error={errors.count} inputMode="numeric" keyboardType="number-pad" />
         </View>
       ) : null}
