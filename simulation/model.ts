@@ -375,7 +375,7 @@ export function createModel(zones: readonly ResolvedZone[], volumeL: number, p: 
       target = fixedTarget;
       floor = fixedFloor;
     }
-    const fph = fph0 < floor ? fph0 + acid * (floor - fph0) : fph0;
+    const fph = adaptedPhFactor(fph0, acid, floor);
     const fa = tan * fnh3 * toNH3; // mg NH3/L
     const inhib = ki / (ki + fa);
     // Totals for exchange: shed cells settle on every zone by area.

@@ -113,6 +113,23 @@ function populationCapacities(g: number[], b: number[], ceiling: number[], share
 }
 
 /**
+ * What one population oxidises once settled, when its zones' saturation factors are s[z]: each
+ * zone's growth and loss, the capacities they settle to (written into out), their sum of
+ * oxidation at the water's temperature. g and b are scratch arrays.
+ */
+function settledOxidation(model: Model, s: number[], growth: number, fedLoss: number, ceiling: number[], activity: number, g: number[], b: number[], out: number[]): number {
+  const nz = s.length;
+  for (let z = 0; z < nz; z++) {
+    g[z] = growth * s[z];
+    b[z] = model.settledLoss(g[z], fedLoss);
+  }
+  populationCapacities(g, b, ceiling, model.settleShare, model.current.exchange, model.current.immigration, out);
+  let sum = 0;
+  for (let z = 0; z < nz; z++) sum += out[z] * activity * s[z];
+  return sum;
+}
+
+/**
  * @param loadMgNPerDay TAN the populations must oxidise (plus what plants take), mg N/d.
  * @param kh carbonate hardness at which pH is evaluated (carbonate mode).
  */
@@ -130,20 +147,11 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
   const scratch = zeros(nz);
   const V = model.volumeL;
   const acid = model.acidTarget(kh);
-  const share = model.settleShare;
   const plantTan = (tan: number) => (c.plantUptake > 0 ? (c.plantUptake * tan) / (model.params.kTanPlants + tan) : 0) * V;
 
   const aoOxidation = (tan: number, store: boolean) => {
     model.saturations(tan, 0, kh, acid, sA, sN);
-    for (let z = 0; z < nz; z++) {
-      gA[z] = c.growthAo * sA[z];
-      bA[z] = model.settledLoss(gA[z], c.decayAo);
-    }
-    const out = store ? capAo : scratch;
-    populationCapacities(gA, bA, model.ceilingAo, share, c.exchange, c.immigration, out);
-    let sum = 0;
-    for (let z = 0; z < nz; z++) sum += out[z] * c.activityAo * sA[z];
-    return sum;
+    return settledOxidation(model, sA, c.growthAo, c.decayAo, model.ceilingAo, c.activityAo, gA, bA, store ? capAo : scratch);
   };
   const load = Math.max(0, loadMgNPerDay);
   let tan = 0;
@@ -158,15 +166,7 @@ export function matureSteadyState(model: Model, loadMgNPerDay: number, kh: numbe
 
   const noOxidation = (x: number, store: boolean) => {
     model.saturations(tan, x, kh, acid, sA, sN);
-    for (let z = 0; z < nz; z++) {
-      gN[z] = c.growthNo * sN[z];
-      bN[z] = model.settledLoss(gN[z], c.decayNo);
-    }
-    const out = store ? capNo : scratch;
-    populationCapacities(gN, bN, model.ceilingNo, share, c.exchange, c.immigration, out);
-    let sum = 0;
-    for (let z = 0; z < nz; z++) sum += out[z] * c.activityNo * sN[z];
-    return sum;
+    return settledOxidation(model, sN, c.growthNo, c.decayNo, model.ceilingNo, c.activityNo, gN, bN, store ? capNo : scratch);
   };
   let no2 = 0;
   if (oxidation > 0) {
